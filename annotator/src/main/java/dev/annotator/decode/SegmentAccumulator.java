@@ -1,0 +1,79 @@
+package dev.annotator.decode;
+
+/**
+ * Running statistics of one segment of one label as positions stream in (in any order): mean and minimum
+ * posterior of the label, and the log-likelihood ratio of the bases under the label's states against the rest.
+ *
+ * <p>Per base, the label's emission probability is the posterior-weighted mean over its states (plain mean when
+ * their posterior is 0), likewise for the other states; the segment's log-odds is the sum of the log ratios.
+ * For a label with one state against one background state this is the classic log-likelihood ratio of two
+ * Markov chains.
+ */
+final class SegmentAccumulator {
+    private static final double LOG2 = Math.log(2);
+    private final boolean[] inLabel;
+    private double posteriorSum;
+    private double posteriorMin = Double.POSITIVE_INFINITY;
+    private double logOdds;
+    private int count;
+
+    SegmentAccumulator(boolean[] inLabel) {
+        this.inLabel = inLabel;
+    }
+
+    void reset() {
+        posteriorSum = 0;
+        posteriorMin = Double.POSITIVE_INFINITY;
+        logOdds = 0;
+        count = 0;
+    }
+
+    /** The label's posterior at one base: the sum over its states. */
+    static double labelPosterior(boolean[] inLabel, double[] posterior) {
+        double p = 0;
+        for (int s = 0; s < posterior.length; s++) {
+            if (inLabel[s]) {
+                p += posterior[s];
+            }
+        }
+        return p;
+    }
+
+    void add(double[] posterior, double[] emission) {
+        add(labelPosterior(inLabel, posterior), posterior, emission);
+    }
+
+    void add(double labelPosterior, double[] posterior, double[] emission) {
+        posteriorSum += labelPosterior;
+        posteriorMin = Math.min(posteriorMin, labelPosterior);
+        count++;
+        double inWeighted = 0;
+        double inPlain = 0;
+        int inCount = 0;
+        double outWeighted = 0;
+        double outPlain = 0;
+        int outCount = 0;
+        for (int s = 0; s < posterior.length; s++) {
+            if (inLabel[s]) {
+                inWeighted += posterior[s] * emission[s];
+                inPlain += emission[s];
+                inCount++;
+            } else {
+                outWeighted += posterior[s] * emission[s];
+                outPlain += emission[s];
+                outCount++;
+            }
+        }
+        double outPosterior = 1 - labelPosterior;
+        double eIn = labelPosterior > 0 ? inWeighted / labelPosterior : inPlain / inCount;
+        double eOut = outPosterior > 0 && outWeighted > 0 ? outWeighted / outPosterior : outPlain / Math.max(1, outCount);
+        if (eIn > 0 && eOut > 0) {
+            logOdds += Math.log(eIn / eOut);
+        }
+    }
+
+    Segment toSegment(String label, int start0, int endExclusive, Composition composition) {
+        return new Segment(label, start0 + 1, endExclusive, posteriorSum / count, posteriorMin, logOdds / LOG2,
+                composition);
+    }
+}

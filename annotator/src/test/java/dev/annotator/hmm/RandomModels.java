@@ -1,0 +1,82 @@
+package dev.annotator.hmm;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.SplittableRandom;
+
+/** Random valid parameter sets and sequences for kernel tests. */
+final class RandomModels {
+    private RandomModels() {
+    }
+
+    /** A random model; transitions are sparse (each row keeps at least one, self-loop sometimes forbidden). */
+    static HmmParameters model(SplittableRandom rng, int states, int maxOrder, boolean dense) {
+        double[] start = distribution(rng, states);
+        List<int[]> pairs = new ArrayList<>();
+        List<Double> probs = new ArrayList<>();
+        for (int i = 0; i < states; i++) {
+            boolean[] allowed = new boolean[states];
+            int count = 0;
+            for (int j = 0; j < states; j++) {
+                allowed[j] = dense || rng.nextDouble() < 0.7;
+                if (allowed[j]) {
+                    count++;
+                }
+            }
+            if (count == 0) {
+                allowed[rng.nextInt(states)] = true;
+                count = 1;
+            }
+            double[] row = distribution(rng, count);
+            int c = 0;
+            for (int j = 0; j < states; j++) {
+                if (allowed[j]) {
+                    pairs.add(new int[]{i, j});
+                    probs.add(row[c++]);
+                }
+            }
+        }
+        int[] from = new int[pairs.size()];
+        int[] to = new int[pairs.size()];
+        double[] prob = new double[pairs.size()];
+        for (int t = 0; t < pairs.size(); t++) {
+            from[t] = pairs.get(t)[0];
+            to[t] = pairs.get(t)[1];
+            prob[t] = probs.get(t);
+        }
+        int[] orders = new int[states];
+        double[][] tables = new double[states][];
+        for (int s = 0; s < states; s++) {
+            orders[s] = rng.nextInt(maxOrder + 1);
+            int rows = 1 << (2 * orders[s]);
+            tables[s] = new double[rows * 4];
+            for (int r = 0; r < rows; r++) {
+                System.arraycopy(distribution(rng, 4), 0, tables[s], r * 4, 4);
+            }
+        }
+        return new HmmParameters(start, from, to, prob, orders, tables);
+    }
+
+    static double[] distribution(SplittableRandom rng, int n) {
+        double[] d = new double[n];
+        double sum = 0;
+        for (int i = 0; i < n; i++) {
+            d[i] = 0.05 + rng.nextDouble();
+            sum += d[i];
+        }
+        for (int i = 0; i < n; i++) {
+            d[i] /= sum;
+        }
+        return d;
+    }
+
+    /** Random bases, with N at the given rate and lowercase at random. */
+    static byte[] sequence(SplittableRandom rng, int length, double nRate) {
+        byte[] s = new byte[length];
+        String bases = "ACGTacgt";
+        for (int i = 0; i < length; i++) {
+            s[i] = rng.nextDouble() < nRate ? (byte) 'N' : (byte) bases.charAt(rng.nextInt(8));
+        }
+        return s;
+    }
+}
