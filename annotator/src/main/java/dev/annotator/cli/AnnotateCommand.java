@@ -1,0 +1,99 @@
+package dev.annotator.cli;
+
+import dev.annotator.decode.DecodeMethod;
+import dev.annotator.error.IoFailureException;
+import dev.annotator.model.HmmModel;
+import dev.annotator.model.ModelLoader;
+import dev.annotator.pipeline.AnnotationOptions;
+import dev.annotator.pipeline.AnnotationPipeline;
+import dev.annotator.pipeline.RunSummary;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.ParentCommand;
+import picocli.CommandLine.ParameterException;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+
+@Command(name = "annotate", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
+        description = "Decode every record of a FASTA file with a model and write the called segments as GFF3.",
+        footerHeading = "%n",
+        footer = {
+                "Examples:",
+                "  annotator annotate -m cpg-island -o islands.gff3 contigs.fa",
+                "  zcat assembly.fa.gz | annotator annotate -m cpg-island --min-length 200 - > islands.gff3",
+                "  annotator annotate -m my-model.json --decode viterbi --threads 2 -o calls.gff3 genome.fa.gz",
+                "",
+                "Segments: with posterior decoding, maximal runs where a reported label's posterior exceeds 0.5; "
+                        + "with Viterbi, runs of the label on the most probable path. Score = mean posterior.",
+                "",
+                Caution.TEXT})
+final class AnnotateCommand implements Callable<Integer> {
+
+    @Spec
+    CommandSpec spec;
+
+    @ParentCommand
+    AnnotatorCommand parent;
+
+    @Option(names = {"-m", "--model"}, required = true, paramLabel = "MODEL",
+            description = "Model file (JSON) or the name of a shipped model (see 'annotator models').")
+    String model;
+
+    @Option(names = {"-o", "--output"}, paramLabel = "OUT.gff3",
+            description = "GFF3 output file (default: standard output). Written only if the run succeeds.")
+    String output;
+
+    @Option(names = "--decode", paramLabel = "METHOD", defaultValue = "posterior",
+            description = "posterior (default) or viterbi.")
+    DecodeMethod decode;
+
+    @Option(names = "--min-length", paramLabel = "BP", defaultValue = "0",
+            description = "Drop segments shorter than BP bases (default: ${DEFAULT-VALUE}).")
+    int minLength;
+
+    @Option(names = "--threads", paramLabel = "N",
+            description = "Records decoded in parallel (default: number of processors). Output is identical for any N.")
+    Integer threads;
+
+    @Option(names = {"-q", "--quiet"}, description = "Print nothing on standard error except errors.")
+    boolean quiet;
+
+    @Parameters(paramLabel = "INPUT", description = "FASTA file, plain or gzipped, or - for standard input.")
+    String input;
+
+    @Override
+    public Integer call() throws IOException {
+        int n = threads == null ? Runtime.getRuntime().availableProcessors() : threads;
+        if (n < 1) {
+            throw new ParameterException(spec.commandLine(), "--threads must be at least 1, got " + n);
+        }
+        if (minLength < 0) {
+            throw new ParameterException(spec.commandLine(), "--min-length must not be negative, got " + minLength);
+        }
+        HmmModel hmm = ModelLoader.load(model);
+        PrintWriter err = parent.streams().err();
+        AnnotationPipeline pipeline = new AnnotationPipeline(hmm, new AnnotationOptions(decode, minLength, n));
+        RunSummary summary;
+        try (OutputTarget out = OutputTarget.open(output, parent.streams().out())) {
+            summary = pipeline.run(input, parent.streams().in(), out.writer(), out.name(),
+                    w -> err.println("annotator: warning: " + w), a -> { });
+            try {
+                out.commit();
+            } catch (IOException e) {
+                throw new IoFailureException(out.name() + ": write failed (" + e.getMessage() + ")", e);
+            }
+        }
+        if (!quiet) {
+            err.println(String.format(Locale.ROOT, "annotator: %d record(s), %.3f Mbp, %d segment(s) in %.2f s (%.1f Mbp/s)",
+                    summary.records(), summary.bases() / 1e6, summary.segments(), summary.seconds(),
+                    summary.megabasesPerSecond()));
+        }
+        return 0;
+    }
+}

@@ -1,0 +1,63 @@
+package dev.annotator.cli;
+
+import dev.annotator.error.AnnotatorException;
+import dev.annotator.error.ExitCodes;
+import picocli.CommandLine;
+
+import java.io.InputStream;
+import java.io.OutputStream;
+import java.io.OutputStreamWriter;
+import java.io.PrintStream;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.util.Arrays;
+
+/** Process entry point: runs the command line and exits with its status. */
+public final class Main {
+    private Main() {
+    }
+
+    public static void main(String[] args) {
+        System.exit(run(args, System.in, System.out, System.err));
+    }
+
+    /** Runs one command line on the given streams and returns the exit status (for tests and for embedding). */
+    public static int run(String[] args, InputStream stdin, OutputStream stdout, PrintStream stderr) {
+        boolean debug = Arrays.asList(args).contains("--debug");
+        PrintWriter out = new PrintWriter(new OutputStreamWriter(stdout, StandardCharsets.UTF_8), true);
+        PrintWriter err = new PrintWriter(new OutputStreamWriter(stderr, StandardCharsets.UTF_8), true);
+        CommandLine cl = new CommandLine(new AnnotatorCommand(new Streams(stdin, stdout, err)));
+        cl.setOut(out);
+        cl.setErr(err);
+        cl.setCaseInsensitiveEnumValuesAllowed(true);
+        cl.setParameterExceptionHandler((ex, a) -> {
+            CommandLine cmd = ex.getCommandLine();
+            err.println("annotator: error: " + oneLine(ex.getMessage()) + " (see '" + cmd.getCommandSpec().qualifiedName()
+                    + " --help')");
+            return ExitCodes.USAGE;
+        });
+        cl.setExecutionExceptionHandler((ex, cmd, parsed) -> {
+            if (ex instanceof AnnotatorException ae) {
+                err.println("annotator: error: " + oneLine(ae.getMessage()));
+                if (debug) {
+                    ex.printStackTrace(err);
+                }
+                return ae.exitCode();
+            }
+            err.println("annotator: error: internal error: " + oneLine(String.valueOf(ex))
+                    + (debug ? "" : " (run again with --debug for details)"));
+            if (debug) {
+                ex.printStackTrace(err);
+            }
+            return ExitCodes.SOFTWARE;
+        });
+        int code = cl.execute(args);
+        out.flush();
+        err.flush();
+        return code;
+    }
+
+    private static String oneLine(String message) {
+        return message == null ? "" : message.replace('\n', ' ').replace('\r', ' ').strip();
+    }
+}

@@ -1,0 +1,92 @@
+package dev.annotator.pipeline;
+
+import dev.annotator.decode.Annotator;
+import dev.annotator.decode.RecordAnnotation;
+import dev.annotator.error.BadInputException;
+import dev.annotator.error.IoFailureException;
+import dev.annotator.gff.FeatureIdAllocator;
+import dev.annotator.gff.Gff3Feature;
+import dev.annotator.gff.Gff3Writer;
+import dev.annotator.gff.SegmentFeatures;
+import dev.annotator.hmm.ImpossibleSequenceException;
+import dev.annotator.io.InputOpener;
+import dev.annotator.model.HmmModel;
+import dev.annotator.seq.FastaRecordReader;
+import dev.annotator.seq.SequenceRecord;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.Writer;
+import java.util.function.Consumer;
+
+/**
+ * FASTA in, GFF3 out: reads records one at a time, decodes them on {@code threads} threads, and writes their
+ * segments in input order. The library form of {@code annotator annotate}.
+ */
+public final class AnnotationPipeline {
+    private final HmmModel model;
+    private final AnnotationOptions options;
+    private final Annotator annotator;
+    private final SegmentFeatures features;
+
+    public AnnotationPipeline(HmmModel model, AnnotationOptions options) {
+        this.model = model;
+        this.options = options;
+        this.annotator = new Annotator(model, options.method(), options.minLength());
+        this.features = new SegmentFeatures(model.labels());
+    }
+
+    /**
+     * @param input      a FASTA path (plain or gzipped) or "-" for {@code stdin}
+     * @param gff        where the GFF3 goes; flushed, not closed
+     * @param outputName how to name the output in error messages
+     * @param warnings   receives one-line warnings (skipped empty records)
+     * @param progress   receives each finished record (for progress display); may ignore it
+     */
+    public RunSummary run(String input, InputStream stdin, Writer gff, String outputName, Consumer<String> warnings,
+                          Consumer<RecordAnnotation> progress) {
+        long started = System.nanoTime();
+        String inputName = InputOpener.displayName(input);
+        Gff3Writer writer = new Gff3Writer(gff);
+        FeatureIdAllocator ids = new FeatureIdAllocator();
+        long[] bases = {0};
+        int[] counts = {0, 0};
+        Consumer<RecordAnnotation> sink = annotation -> {
+            try {
+                writer.writeSequenceRegion(annotation.seqid(), annotation.length());
+                for (Gff3Feature f : features.called(annotation, ids)) {
+                    writer.writeFeature(f);
+                }
+            } catch (IOException e) {
+                throw new IoFailureException(outputName + ": write failed (" + e.getMessage() + ")", e);
+            }
+            bases[0] += annotation.length();
+            counts[0]++;
+            counts[1] += annotation.segments().size();
+            progress.accept(annotation);
+        };
+        try (FastaRecordReader reader = FastaRecordReader.open(input, stdin, warnings);
+             OrderedParallelMap<SequenceRecord, RecordAnnotation> map =
+                     new OrderedParallelMap<>(options.threads(), r -> decode(r, inputName), sink)) {
+            writer.writeHeader();
+            SequenceRecord record;
+            while ((record = reader.next()) != null) {
+                map.submit(record);
+            }
+            map.finish();
+            writer.flush();
+        } catch (IOException e) {
+            throw new IoFailureException(outputName + ": write failed (" + e.getMessage() + ")", e);
+        }
+        return new RunSummary(counts[0], bases[0], counts[1], (System.nanoTime() - started) / 1e9);
+    }
+
+    private RecordAnnotation decode(SequenceRecord record, String inputName) {
+        try {
+            return annotator.annotate(record);
+        } catch (ImpossibleSequenceException e) {
+            throw new BadInputException(inputName + ": record " + record.name() + ": model " + model.name()
+                    + " cannot emit this sequence (probability 0 at base " + (e.position() + 1) + ")");
+        }
+    }
+}
