@@ -1,0 +1,270 @@
+package dev.annotator.model;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import dev.annotator.error.BadInputException;
+
+import java.util.ArrayList;
+import java.util.BitSet;
+import java.util.Iterator;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * Turns a parsed JSON tree into an {@link HmmModel}, reporting shape errors (missing field, wrong type,
+ * unknown field) with their JSON path, and the emission-table layout errors that only exist in the file
+ * (context keys, row lengths). Numbers are checked afterwards by {@link ModelValidator}.
+ */
+final class ModelTreeReader {
+    private static final List<String> TOP = List.of("format", "name", "description", "provenance", "labels", "states",
+            "start", "transitions");
+    private static final List<String> PROVENANCE = List.of("source", "notes");
+    private static final List<String> LABEL = List.of("name", "feature_type", "so_accession", "background",
+            "composition");
+    private static final List<String> STATE = List.of("name", "label", "order", "emissions");
+    private static final List<String> TRANSITION = List.of("from", "to", "p");
+
+    private final String file;
+
+    ModelTreeReader(String displayName) {
+        this.file = displayName;
+    }
+
+    HmmModel read(JsonNode root) {
+        requireObject(root, "");
+        checkFormat(root);
+        requireFields(root, "", TOP, TOP);
+        String name = text(root, "name", "");
+        String description = text(root, "description", "");
+        Provenance provenance = provenance(root.get("provenance"));
+        List<Label> labels = new ArrayList<>();
+        JsonNode labelArray = array(root, "labels", "");
+        for (int i = 0; i < labelArray.size(); i++) {
+            labels.add(label(labelArray.get(i), "labels[" + i + "]"));
+        }
+        List<State> states = new ArrayList<>();
+        JsonNode stateArray = array(root, "states", "");
+        for (int i = 0; i < stateArray.size(); i++) {
+            states.add(state(stateArray.get(i), "states[" + i + "]"));
+        }
+        // names key the start distribution, so a duplicate must be reported before "start" is read
+        String twice = ModelValidator.firstDuplicate(states.stream().map(State::name).toList());
+        if (twice != null) {
+            throw fail("duplicate state name " + ModelValidator.quote(twice));
+        }
+        double[] start = start(root.get("start"), states);
+        List<Transition> transitions = new ArrayList<>();
+        JsonNode transitionArray = array(root, "transitions", "");
+        for (int i = 0; i < transitionArray.size(); i++) {
+            transitions.add(transition(transitionArray.get(i), "transitions[" + i + "]"));
+        }
+        return new HmmModel(name, description, provenance, labels, states, start, transitions);
+    }
+
+    private void checkFormat(JsonNode root) {
+        JsonNode f = root.get("format");
+        if (f == null) {
+            throw fail("missing field \"format\" (expected \"" + ModelJson.FORMAT + "\")");
+        }
+        if (!f.isTextual() || !f.textValue().equals(ModelJson.FORMAT)) {
+            throw fail("unknown format " + f + " (this version reads \"" + ModelJson.FORMAT + "\")");
+        }
+    }
+
+    private Provenance provenance(JsonNode node) {
+        String path = "provenance";
+        requireObject(node, path);
+        requireFields(node, path, PROVENANCE, List.of("source"));
+        String source = text(node, "source", path);
+        List<String> notes = new ArrayList<>();
+        if (node.has("notes")) {
+            JsonNode arr = array(node, "notes", path);
+            for (int i = 0; i < arr.size(); i++) {
+                JsonNode n = arr.get(i);
+                if (!n.isTextual()) {
+                    throw wrongType(path + ".notes[" + i + "]", "a string", n);
+                }
+                notes.add(n.textValue());
+            }
+        }
+        return new Provenance(source, notes);
+    }
+
+    private Label label(JsonNode node, String path) {
+        requireObject(node, path);
+        requireFields(node, path, LABEL, List.of("name"));
+        return new Label(text(node, "name", path), optionalText(node, "feature_type", path),
+                optionalText(node, "so_accession", path), flag(node, "background", path),
+                flag(node, "composition", path));
+    }
+
+    private State state(JsonNode node, String path) {
+        requireObject(node, path);
+        requireFields(node, path, STATE, STATE);
+        String name = text(node, "name", path);
+        String label = text(node, "label", path);
+        JsonNode orderNode = node.get("order");
+        if (!orderNode.isIntegralNumber()) {
+            throw wrongType(path + ".order", "an integer", orderNode);
+        }
+        String where = "state " + ModelValidator.quote(name) + ": ";
+        // a model file is untrusted: the declared order bounds the table size, so check it before anything else
+        if (!orderNode.canConvertToInt() || orderNode.intValue() < 0
+                || orderNode.intValue() > ModelValidator.MAX_ORDER) {
+            throw fail(where + "order " + orderNode + " is outside 0.." + ModelValidator.MAX_ORDER);
+        }
+        int order = orderNode.intValue();
+        JsonNode emissions = node.get("emissions");
+        requireObject(emissions, path + ".emissions");
+        int rows = EmissionContexts.count(order);
+        BitSet present = new BitSet(rows);
+        for (Iterator<String> it = emissions.fieldNames(); it.hasNext(); ) {
+            String key = it.next();
+            int row = EmissionContexts.row(key);
+            if (key.length() != order || row < 0) {
+                throw fail(where + "emissions key " + ModelValidator.quote(key) + " is not a context of " + order
+                        + (order == 1 ? " base" : " bases") + " over A, C, G, T (order " + order + ")");
+            }
+            present.set(row);
+        }
+        if (present.cardinality() != rows) {
+            int missing = present.nextClearBit(0);
+            throw fail(where + "emissions has " + present.cardinality() + " contexts, order " + order + " needs 4^"
+                    + order + " = " + rows + " (missing " + ModelValidator.quote(EmissionContexts.name(missing, order))
+                    + ")");
+        }
+        double[] table = new double[rows * 4];
+        for (Map.Entry<String, JsonNode> e : emissions.properties()) {
+            String rowPath = path + ".emissions[" + ModelValidator.quote(e.getKey()) + "]";
+            JsonNode values = e.getValue();
+            if (!values.isArray()) {
+                throw wrongType(rowPath, "an array of 4 probabilities", values);
+            }
+            if (values.size() != 4) {
+                throw fail(where + "emissions[" + ModelValidator.quote(e.getKey()) + "] has " + values.size()
+                        + " values, expected 4 (P of A, C, G, T)");
+            }
+            int row = EmissionContexts.row(e.getKey());
+            for (int b = 0; b < 4; b++) {
+                table[row * 4 + b] = number(values.get(b), rowPath + "[" + b + "]");
+            }
+        }
+        return new State(name, label, order, table);
+    }
+
+    private double[] start(JsonNode node, List<State> states) {
+        requireObject(node, "start");
+        double[] start = new double[states.size()];
+        for (Map.Entry<String, JsonNode> e : node.properties()) {
+            int s = indexOf(states, e.getKey());
+            if (s < 0) {
+                throw fail("start: unknown state " + ModelValidator.quote(e.getKey()));
+            }
+            start[s] = number(e.getValue(), "start[" + ModelValidator.quote(e.getKey()) + "]");
+        }
+        return start;
+    }
+
+    private Transition transition(JsonNode node, String path) {
+        requireObject(node, path);
+        requireFields(node, path, TRANSITION, TRANSITION);
+        return new Transition(text(node, "from", path), text(node, "to", path), number(node.get("p"), path + ".p"));
+    }
+
+    private static int indexOf(List<State> states, String name) {
+        for (int i = 0; i < states.size(); i++) {
+            if (states.get(i).name().equals(name)) {
+                return i;
+            }
+        }
+        return -1;
+    }
+
+    // ---- shape helpers: every error names the JSON path ----
+
+    private void requireObject(JsonNode node, String path) {
+        if (!node.isObject()) {
+            throw wrongType(path, "an object", node);
+        }
+    }
+
+    /** Unknown fields first: a misspelt field then reads as a typo, not as the missing field it was meant to be. */
+    private void requireFields(JsonNode node, String path, List<String> allowed, List<String> required) {
+        for (Iterator<String> it = node.fieldNames(); it.hasNext(); ) {
+            String f = it.next();
+            if (!allowed.contains(f)) {
+                throw fail(at(path) + "unknown field " + ModelValidator.quote(f));
+            }
+        }
+        for (String f : required) {
+            if (!node.has(f)) {
+                throw fail(at(path) + "missing field " + ModelValidator.quote(f));
+            }
+        }
+    }
+
+    private String text(JsonNode parent, String field, String path) {
+        JsonNode n = parent.get(field);
+        if (!n.isTextual()) {
+            throw wrongType(join(path, field), "a string", n);
+        }
+        return n.textValue();
+    }
+
+    private String optionalText(JsonNode parent, String field, String path) {
+        return parent.has(field) ? text(parent, field, path) : null;
+    }
+
+    private boolean flag(JsonNode parent, String field, String path) {
+        JsonNode n = parent.get(field);
+        if (n == null) {
+            return false;
+        }
+        if (!n.isBoolean()) {
+            throw wrongType(join(path, field), "true or false", n);
+        }
+        return n.booleanValue();
+    }
+
+    private JsonNode array(JsonNode parent, String field, String path) {
+        JsonNode n = parent.get(field);
+        if (!n.isArray()) {
+            throw wrongType(join(path, field), "an array", n);
+        }
+        return n;
+    }
+
+    private double number(JsonNode n, String path) {
+        if (!n.isNumber()) {
+            throw wrongType(path, "a number", n);
+        }
+        return n.doubleValue();
+    }
+
+    private BadInputException wrongType(String path, String expected, JsonNode found) {
+        return fail(at(path) + "expected " + expected + ", found " + kind(found));
+    }
+
+    private BadInputException fail(String what) {
+        return new BadInputException(file + ": " + what);
+    }
+
+    private static String at(String path) {
+        return path.isEmpty() ? "top level: " : path + ": ";
+    }
+
+    private static String join(String path, String field) {
+        return path.isEmpty() ? field : path + "." + field;
+    }
+
+    private static String kind(JsonNode n) {
+        return switch (n.getNodeType()) {
+            case STRING -> "a string";
+            case NUMBER -> "a number";
+            case BOOLEAN -> n.booleanValue() ? "true" : "false";
+            case NULL -> "null";
+            case ARRAY -> "an array";
+            case OBJECT -> "an object";
+            default -> n.getNodeType().toString().toLowerCase(java.util.Locale.ROOT);
+        };
+    }
+}
