@@ -1,0 +1,79 @@
+package dev.annotator.gff;
+
+import dev.annotator.decode.Composition;
+import dev.annotator.decode.RecordAnnotation;
+import dev.annotator.decode.Segment;
+import dev.annotator.model.Label;
+
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * Turns decoded segments (and planted truth segments) into GFF3 features of the label's Sequence Ontology type.
+ *
+ * <p>Called segments carry: score = mean posterior of the label; attributes {@code ID}, {@code posterior_min}
+ * (3 decimals), {@code log_odds} (bits, 2 decimals) and, for segments with a composition, {@code gc} and
+ * {@code cpg_oe} (3 decimals). Attribute names start lowercase because the GFF3 specification reserves
+ * uppercase-initial names (v1.26, Column 9). A number that is not finite (cpg_oe without C or G, log odds of a
+ * base the other states cannot emit) is left out rather than written as text a reader cannot parse.
+ */
+public final class SegmentFeatures {
+    /** Column 2 of every feature this tool writes. */
+    public static final String SOURCE = "annotator";
+
+    private final Map<String, Label> labelsByName = new HashMap<>();
+
+    /** @param labels the model's labels (all of them; background segments are rejected) */
+    public SegmentFeatures(List<Label> labels) {
+        for (Label l : labels) {
+            labelsByName.putIfAbsent(l.name(), l);
+        }
+    }
+
+    /** One feature per segment, in the annotation's order; IDs come from {@code ids}. */
+    public List<Gff3Feature> called(RecordAnnotation annotation, FeatureIdAllocator ids) {
+        List<Gff3Feature> out = new ArrayList<>(annotation.segments().size());
+        for (Segment s : annotation.segments()) {
+            Label label = reported(s.label());
+            List<Map.Entry<String, List<String>>> attrs = new ArrayList<>(5);
+            attrs.add(Map.entry("ID", List.of(ids.next(label.name()))));
+            addNumber(attrs, "posterior_min", s.minPosterior(), 3);
+            addNumber(attrs, "log_odds", s.logOddsBits(), 2);
+            Composition c = s.composition();
+            if (c != null) {
+                addNumber(attrs, "gc", c.gc(), 3);
+                addNumber(attrs, "cpg_oe", c.cpgObservedExpected(), 3);
+            }
+            out.add(new Gff3Feature(annotation.seqid(), SOURCE, label.featureType(), s.start(), s.end(),
+                    s.meanPosterior(), '.', ".", attrs));
+        }
+        return out;
+    }
+
+    /** A planted (truth) segment of a simulated record: no score, only an {@code ID}. */
+    public Gff3Feature truth(String seqid, String labelName, long start, long end, FeatureIdAllocator ids) {
+        Label label = reported(labelName);
+        return new Gff3Feature(seqid, SOURCE, label.featureType(), start, end, null, '.', ".",
+                List.of(Map.entry("ID", List.of(ids.next(label.name())))));
+    }
+
+    private Label reported(String name) {
+        Label label = labelsByName.get(name);
+        if (label == null) {
+            throw new IllegalArgumentException("segment label " + name + " is not a label of the model");
+        }
+        if (label.background()) {
+            throw new IllegalArgumentException("segment label " + name + " is the background, which is never reported");
+        }
+        return label;
+    }
+
+    private static void addNumber(List<Map.Entry<String, List<String>>> attrs, String tag, double value,
+                                  int decimals) {
+        if (Double.isFinite(value)) {
+            attrs.add(Map.entry(tag, List.of(FixedDecimals.format(value, decimals))));
+        }
+    }
+}
