@@ -15,7 +15,6 @@ import java.io.Writer;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.SplittableRandom;
-import java.util.function.Consumer;
 
 /**
  * Samples records from a model and writes them as FASTA, with their true segments as GFF3. Records are named
@@ -31,14 +30,12 @@ public final class SimulationRun {
         this.simulator = new SequenceSimulator(model);
     }
 
-    /** Samples {@code lengths.length} records; each is handed to {@code each} as it is made. */
-    public List<SimulatedRecord> sample(String prefix, int[] lengths, long seed, Consumer<SimulatedRecord> each) {
+    /** Samples one record per name, of the matching length, from one random stream seeded with {@code seed}. */
+    public List<SimulatedRecord> sample(List<String> names, int[] lengths, long seed) {
         SplittableRandom rng = new SplittableRandom(seed);
         List<SimulatedRecord> out = new ArrayList<>();
         for (int i = 0; i < lengths.length; i++) {
-            SimulatedRecord r = simulator.sample(prefix + (i + 1), lengths[i], rng);
-            each.accept(r);
-            out.add(r);
+            out.add(simulator.sample(names.get(i), lengths[i], rng));
         }
         return out;
     }
