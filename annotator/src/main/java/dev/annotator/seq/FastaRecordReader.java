@@ -20,10 +20,12 @@ import java.util.function.Consumer;
  * duplicate names) with a one-line {@link BadInputException} naming file and line. Records without bases
  * are reported to the warnings consumer and skipped.
  *
- * <p>Memory: only the current record is held. For a record of L bases the transient peak is about 4L bytes
- * (multi-line: BioJava's StringBuilder, which grows by doubling to at most 2L, plus its toString copy L,
- * plus our byte[] L; single-line: BioJava's line buffer up to 2L first, then the line String L, the builder
- * L, its String L and our byte[] L, of which about 4L are live at once). What stays is the record's L.
+ * <p>Memory: only the current record is held, plus the parser's 8 KiB buffers and the names seen so far
+ * (for the duplicate check). For a record of L bases the transient peak is about 4L bytes, all Latin-1:
+ * multi-line records reach it when BioJava's StringBuilder (grown by doubling, so up to 2L) is turned into
+ * a String (L) and we copy that into our byte[] (L); a single-line record first needs BioJava's line buffer
+ * (up to 2L) plus the line String (L), then builder, String and byte[] (L each, 3L). Afterwards only the
+ * record's own L bytes stay. Blanks inside sequence lines cost one more L-byte copy to remove.
  */
 public final class FastaRecordReader implements AutoCloseable {
     private final String fileName;
