@@ -1,0 +1,136 @@
+package dev.annotator.io;
+
+import dev.annotator.error.BadInputException;
+import dev.annotator.error.IoFailureException;
+import dev.annotator.error.MissingInputException;
+
+import java.io.BufferedInputStream;
+import java.io.EOFException;
+import java.io.FilterInputStream;
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.file.AccessDeniedException;
+import java.nio.file.Files;
+import java.nio.file.InvalidPathException;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.util.zip.GZIPInputStream;
+import java.util.zip.ZipException;
+
+/**
+ * Opens an input named on the command line: a file path, or "-" for standard input. Gzip is recognised by
+ * its magic bytes, not by the file name, so "reads.fa" that is really compressed still works and
+ * "x.fa.gz" that was already unpacked is read as it is.
+ *
+ * <p>The stream returned never throws {@link IOException} for data problems: a truncated or corrupt gzip
+ * member surfaces as {@link BadInputException}, any other read failure as {@link IoFailureException}, both
+ * with a one-line message naming the input.
+ */
+public final class InputOpener {
+    /** The path that stands for standard input. */
+    public static final String STDIN = "-";
+
+    /** Large enough that inflating and reading a multi-gigabyte file is not dominated by call overhead. */
+    static final int BUFFER_SIZE = 1 << 16;
+
+    private static final int GZIP_MAGIC_1 = 0x1f;
+    private static final int GZIP_MAGIC_2 = 0x8b;
+
+    private InputOpener() {
+    }
+
+    /** The name used for an input in messages: the path as given, or "&lt;stdin&gt;" for "-". */
+    public static String displayName(String pathOrDash) {
+        return STDIN.equals(pathOrDash) ? "<stdin>" : pathOrDash;
+    }
+
+    /**
+     * Opens a file or, for "-", the given standard input (which is not closed when the returned stream is).
+     *
+     * @throws MissingInputException the file does not exist, is a directory or cannot be read
+     * @throws BadInputException     the input starts like gzip but its header is cut short or damaged
+     * @throws IoFailureException    reading the first bytes failed
+     */
+    public static InputStream open(String pathOrDash, InputStream stdin) {
+        String name = displayName(pathOrDash);
+        InputStream raw = STDIN.equals(pathOrDash) ? new KeepOpenInputStream(stdin) : openFile(pathOrDash);
+        BufferedInputStream buffered = new BufferedInputStream(raw, BUFFER_SIZE);
+        boolean gzip = false;
+        try {
+            gzip = startsWithGzipMagic(buffered);
+            // GZIPInputStream reads the member header in its constructor, so a damaged header fails here
+            InputStream data = gzip ? new GZIPInputStream(buffered, BUFFER_SIZE) : buffered;
+            return new ReadFailureTranslator(data, name, gzip);
+        } catch (IOException e) {
+            closeQuietly(buffered);
+            throw translate(e, name, gzip);
+        }
+    }
+
+    private static InputStream openFile(String path) {
+        Path file;
+        try {
+            file = Path.of(path);
+        } catch (InvalidPathException e) {
+            throw new MissingInputException(path + ": no such file");
+        }
+        if (!Files.exists(file)) {
+            throw new MissingInputException(path + ": no such file");
+        }
+        if (Files.isDirectory(file)) {
+            throw new MissingInputException(path + ": is a directory");
+        }
+        if (!Files.isReadable(file)) {
+            throw new MissingInputException(path + ": cannot be read (permission denied)");
+        }
+        try {
+            return Files.newInputStream(file);
+        } catch (NoSuchFileException e) {
+            // removed between the checks above and the open
+            throw new MissingInputException(path + ": no such file");
+        } catch (AccessDeniedException e) {
+            throw new MissingInputException(path + ": cannot be read (permission denied)");
+        } catch (IOException e) {
+            throw new MissingInputException(path + ": cannot be opened: " + e.getMessage());
+        }
+    }
+
+    private static boolean startsWithGzipMagic(BufferedInputStream in) throws IOException {
+        in.mark(2);
+        int first = in.read();
+        int second = first < 0 ? -1 : in.read();
+        in.reset();
+        return first == GZIP_MAGIC_1 && second == GZIP_MAGIC_2;
+    }
+
+    /**
+     * EOFException and ZipException come from the inflater (input ends inside a member, bad deflate data,
+     * CRC or size mismatch in the trailer); they mean the data is bad, not that the device failed.
+     */
+    static RuntimeException translate(IOException e, String name, boolean gzip) {
+        if (gzip && (e instanceof EOFException || e instanceof ZipException)) {
+            return new BadInputException(name + ": truncated or corrupt gzip data", e);
+        }
+        return new IoFailureException(name + ": read failed: " + e.getMessage(), e);
+    }
+
+    private static void closeQuietly(InputStream in) {
+        try {
+            in.close();
+        } catch (IOException ignored) {
+            // the open already failed; that failure is the one to report
+        }
+    }
+
+    /** Standard input belongs to the process, not to whoever reads it. */
+    private static final class KeepOpenInputStream extends FilterInputStream {
+        KeepOpenInputStream(InputStream in) {
+            super(in);
+        }
+
+        @Override
+        public void close() {
+            // deliberately left open
+        }
+    }
+}

@@ -1,0 +1,189 @@
+package dev.annotator.io;
+
+import dev.annotator.error.AnnotatorException;
+import dev.annotator.error.BadInputException;
+import dev.annotator.error.IoFailureException;
+import dev.annotator.error.MissingInputException;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+import java.io.ByteArrayInputStream;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.SequenceInputStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.attribute.PosixFilePermissions;
+import java.util.Arrays;
+import java.util.zip.GZIPOutputStream;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.catchThrowableOfType;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
+
+class InputOpenerTest {
+    private static final byte[] TEXT = ">r1 demo\nACGTNNacgt\n>r2\nGGCC\n".getBytes(StandardCharsets.US_ASCII);
+
+    @TempDir
+    Path dir;
+
+    @Test
+    void readsPlainFileAsIs() throws IOException {
+        Path f = write("plain.fa", TEXT);
+        assertThat(readAll(f.toString(), InputStream.nullInputStream())).isEqualTo(TEXT);
+    }
+
+    @Test
+    void gzipIsRecognisedByContentNotByName() throws IOException {
+        // compressed data under a plain name, plain data under a .gz name
+        Path compressed = write("looks-plain.fa", gzip(TEXT));
+        Path plain = write("looks-compressed.fa.gz", TEXT);
+        assertThat(readAll(compressed.toString(), null)).isEqualTo(TEXT);
+        assertThat(readAll(plain.toString(), null)).isEqualTo(TEXT);
+    }
+
+    @Test
+    void concatenatedGzipMembersReadAsOneStream() throws IOException {
+        // RFC 1952 section 2.2: a gzip file is a series of members; readers return their concatenation
+        byte[] first = Arrays.copyOfRange(TEXT, 0, 10);
+        byte[] second = Arrays.copyOfRange(TEXT, 10, TEXT.length);
+        Path f = write("two-members.gz", concat(gzip(first), gzip(second)));
+        assertThat(readAll(f.toString(), null)).isEqualTo(TEXT);
+    }
+
+    @Test
+    void shortInputsThatAreNotGzipSurviveTheMagicCheck() throws IOException {
+        assertThat(readAll(write("empty.fa", new byte[0]).toString(), null)).isEmpty();
+        assertThat(readAll(write("one.fa", new byte[] {0x1f}).toString(), null)).containsExactly(0x1f);
+    }
+
+    @Test
+    void dashReadsTheGivenStdinAndLeavesItOpen() throws IOException {
+        ClosingProbe stdin = new ClosingProbe(gzip(TEXT));
+        try (InputStream in = InputOpener.open("-", stdin)) {
+            assertThat(in.readAllBytes()).isEqualTo(TEXT);
+        }
+        assertThat(stdin.closed).isFalse();
+    }
+
+    @Test
+    void displayNames() {
+        assertThat(InputOpener.displayName("-")).isEqualTo("<stdin>");
+        assertThat(InputOpener.displayName("data/x.fa")).isEqualTo("data/x.fa");
+    }
+
+    @Test
+    void missingFile() {
+        String path = dir.resolve("nope.fa").toString();
+        MissingInputException e = catchThrowableOfType(MissingInputException.class,
+                () -> InputOpener.open(path, null));
+        assertThat(e).hasMessage(path + ": no such file");
+        assertThat(e.exitCode()).isEqualTo(66);
+    }
+
+    @Test
+    void directory() {
+        MissingInputException e = catchThrowableOfType(MissingInputException.class,
+                () -> InputOpener.open(dir.toString(), null));
+        assertThat(e).hasMessage(dir + ": is a directory");
+        assertThat(e.exitCode()).isEqualTo(66);
+    }
+
+    @Test
+    void unreadableFile() throws IOException {
+        Path f = write("locked.fa", TEXT);
+        Files.setPosixFilePermissions(f, PosixFilePermissions.fromString("---------"));
+        // the superuser reads anything, so the check only means something for other users
+        assumeTrue(!Files.isReadable(f), "running with permission to read a mode-000 file");
+        MissingInputException e = catchThrowableOfType(MissingInputException.class,
+                () -> InputOpener.open(f.toString(), null));
+        assertThat(e).hasMessage(f + ": cannot be read (permission denied)");
+        assertThat(e.exitCode()).isEqualTo(66);
+    }
+
+    @Test
+    void truncatedGzipDataIsBadInput() throws IOException {
+        byte[] big = new byte[200_000];
+        for (int i = 0; i < big.length; i++) {
+            big[i] = (byte) "ACGT\n".charAt((i * 7 + i / 13) % 5);
+        }
+        byte[] gz = gzip(big);
+        Path f = write("cut.fa.gz", Arrays.copyOf(gz, gz.length / 2));
+        BadInputException e = catchThrowableOfType(BadInputException.class, () -> readAll(f.toString(), null));
+        assertThat(e).hasMessage(f + ": truncated or corrupt gzip data");
+        assertThat(e.exitCode()).isEqualTo(65);
+    }
+
+    @Test
+    void truncatedGzipHeaderIsBadInputAtOpen() throws IOException {
+        Path f = write("stub.gz", new byte[] {0x1f, (byte) 0x8b, 8});
+        BadInputException e = catchThrowableOfType(BadInputException.class, () -> InputOpener.open(f.toString(), null));
+        assertThat(e).hasMessage(f + ": truncated or corrupt gzip data");
+    }
+
+    @Test
+    void wrongChecksumInGzipTrailerIsBadInput() throws IOException {
+        // RFC 1952 section 2.3.1: the member ends with CRC32 then ISIZE; flipping a CRC bit must be detected
+        byte[] gz = gzip(TEXT);
+        gz[gz.length - 8] ^= 0x01;
+        Path f = write("crc.gz", gz);
+        BadInputException e = catchThrowableOfType(BadInputException.class, () -> readAll(f.toString(), null));
+        assertThat(e).hasMessage(f + ": truncated or corrupt gzip data");
+    }
+
+    @Test
+    void deviceFailureWhileReadingIsIoFailure() {
+        InputStream failing = new SequenceInputStream(new ByteArrayInputStream(TEXT), new InputStream() {
+            @Override
+            public int read() throws IOException {
+                throw new IOException("device gone");
+            }
+        });
+        IoFailureException e = catchThrowableOfType(IoFailureException.class, () -> {
+            try (InputStream in = InputOpener.open("-", failing)) {
+                in.readAllBytes();
+            }
+        });
+        assertThat(e).hasMessage("<stdin>: read failed: device gone");
+        assertThat(((AnnotatorException) e).exitCode()).isEqualTo(74);
+    }
+
+    private byte[] readAll(String path, InputStream stdin) throws IOException {
+        try (InputStream in = InputOpener.open(path, stdin)) {
+            return in.readAllBytes();
+        }
+    }
+
+    private Path write(String name, byte[] content) throws IOException {
+        return Files.write(dir.resolve(name), content);
+    }
+
+    static byte[] gzip(byte[] data) throws IOException {
+        ByteArrayOutputStream bytes = new ByteArrayOutputStream();
+        try (GZIPOutputStream out = new GZIPOutputStream(bytes)) {
+            out.write(data);
+        }
+        return bytes.toByteArray();
+    }
+
+    private static byte[] concat(byte[] a, byte[] b) {
+        byte[] out = Arrays.copyOf(a, a.length + b.length);
+        System.arraycopy(b, 0, out, a.length, b.length);
+        return out;
+    }
+
+    private static final class ClosingProbe extends ByteArrayInputStream {
+        boolean closed;
+
+        ClosingProbe(byte[] data) {
+            super(data);
+        }
+
+        @Override
+        public void close() {
+            closed = true;
+        }
+    }
+}
