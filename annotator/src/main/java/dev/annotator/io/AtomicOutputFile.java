@@ -9,6 +9,7 @@ import java.nio.file.AtomicMoveNotSupportedException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.util.UUID;
 
 /**
  * An output file that appears at its target path only when complete: bytes go to a hidden temporary file in
@@ -41,7 +42,10 @@ public final class AtomicOutputFile implements AutoCloseable {
             throw new IoFailureException(target + ": is a directory");
         }
         try {
-            Path tmp = Files.createTempFile(dir, "." + absolute.getFileName(), ".partial");
+            // created like any new file (mode from the umask), unlike createTempFile's owner-only mode, so the
+            // renamed output has the permissions a user expects
+            Path tmp = dir.resolve("." + absolute.getFileName() + "." + UUID.randomUUID() + ".partial");
+            Files.createFile(tmp);
             return new AtomicOutputFile(target, tmp, new BufferedOutputStream(Files.newOutputStream(tmp), 1 << 16));
         } catch (IOException e) {
             throw new IoFailureException(target + ": cannot create output in " + dir + " (" + reason(e) + ")", e);
