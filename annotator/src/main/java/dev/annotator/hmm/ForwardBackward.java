@@ -70,6 +70,7 @@ public final class ForwardBackward {
         double[] weighted = new double[k];
         double[] gamma = new double[k];
         double[] eAt = new double[k];
+        double[] before = new double[k];
         int[] succOffset = p.succOffset();
         int[] succState = p.succState();
         double[] succProb = p.succProb();
@@ -78,7 +79,9 @@ public final class ForwardBackward {
         for (int b = blocks - 1; b >= 0; b--) {
             int start = b * blockSize;
             int end = Math.min(n, start + blockSize);
-            recomputeBlock(seq, start, end, checkpoints, b, alpha, emis, track);
+            System.arraycopy(checkpoints, b * k, before, 0, k);
+            track.seek(seq, start);
+            forwardBlock(seq, start, end, before, alpha, emis, track, null);
             for (int t = end - 1; t >= start; t--) {
                 if (t == n - 1) {
                     java.util.Arrays.fill(beta, 1.0 / k);
@@ -133,68 +136,47 @@ public final class ForwardBackward {
     }
 
     /**
-     * Forward pass; stores the normalised forward vector that precedes each block (for block 0: nothing, the start
-     * distribution is used) when {@code checkpoints} is not null.
+     * Forward pass, block by block through the same code that the backward pass uses to recompute a block; keeps
+     * the normalised forward vector that precedes each block (block 0 has none: it starts from the start
+     * distribution) when {@code checkpoints} is not null.
      */
     private double forward(byte[] seq, double[] checkpoints) {
         int n = seq.length;
         int k = p.stateCount();
-        double[] start = p.startArray();
-        int[] predOffset = p.predOffset();
-        int[] predState = p.predState();
-        double[] predProb = p.predProb();
-        double[] prev = new double[k];
-        double[] cur = new double[k];
-        double[] e = new double[k];
+        if (n == 0) {
+            return 0.0;
+        }
+        int maxLen = Math.min(blockSize, n);
+        double[] alpha = new double[maxLen * k];
+        double[] emis = new double[maxLen * k];
+        double[] carried = new double[k];
         EmissionTrack track = new EmissionTrack(p);
         LogScaleAccumulator scale = new LogScaleAccumulator();
-        for (int t = 0; t < n; t++) {
-            if (checkpoints != null && t % blockSize == 0 && t > 0) {
-                System.arraycopy(prev, 0, checkpoints, (t / blockSize) * k, k);
+        track.seek(seq, 0);
+        for (int start = 0, block = 0; start < n; start += blockSize, block++) {
+            int end = Math.min(n, start + blockSize);
+            forwardBlock(seq, start, end, carried, alpha, emis, track, scale);
+            System.arraycopy(alpha, (end - 1 - start) * k, carried, 0, k);
+            if (checkpoints != null && end < n) {
+                System.arraycopy(carried, 0, checkpoints, (block + 1) * k, k);
             }
-            track.emit(seq[t], e, 0);
-            double c = 0;
-            if (t == 0) {
-                for (int j = 0; j < k; j++) {
-                    double v = start[j] * e[j];
-                    cur[j] = v;
-                    c += v;
-                }
-            } else {
-                for (int j = 0; j < k; j++) {
-                    double s = 0;
-                    for (int q = predOffset[j]; q < predOffset[j + 1]; q++) {
-                        s += prev[predState[q]] * predProb[q];
-                    }
-                    double v = s * e[j];
-                    cur[j] = v;
-                    c += v;
-                }
-            }
-            if (!(c > 0)) {
-                throw new ImpossibleSequenceException(t);
-            }
-            double inv = 1.0 / c;
-            for (int j = 0; j < k; j++) {
-                cur[j] *= inv;
-            }
-            scale.multiply(c);
-            double[] swap = prev;
-            prev = cur;
-            cur = swap;
         }
         return scale.log();
     }
 
-    /** Forward vectors and emissions of one block, from the checkpoint that precedes it. */
-    private void recomputeBlock(byte[] seq, int start, int end, double[] checkpoints, int block,
-                                double[] alpha, double[] emis, EmissionTrack track) {
+    /**
+     * Forward vectors (normalised) and emissions of the bases {@code [start, end)}, continuing from the forward
+     * vector {@code before} of base start-1 (unused for start 0). The track must be positioned at {@code start}.
+     *
+     * @param scale receives the scale factors (the first pass), or null when recomputing
+     */
+    private void forwardBlock(byte[] seq, int start, int end, double[] before, double[] alpha, double[] emis,
+                              EmissionTrack track, LogScaleAccumulator scale) {
         int k = p.stateCount();
         double[] startProb = p.startArray();
         int[] predOffset = p.predOffset();
         int[] predState = p.predState();
         double[] predProb = p.predProb();
-        track.seek(seq, start);
         for (int t = start; t < end; t++) {
             int off = (t - start) * k;
             track.emit(seq[t], emis, off);
@@ -206,15 +188,8 @@ public final class ForwardBackward {
                     c += v;
                 }
             } else {
-                double[] prev;
-                int prevOff;
-                if (t == start) {
-                    prev = checkpoints;
-                    prevOff = block * k;
-                } else {
-                    prev = alpha;
-                    prevOff = off - k;
-                }
+                double[] prev = t == start ? before : alpha;
+                int prevOff = t == start ? 0 : off - k;
                 for (int j = 0; j < k; j++) {
                     double s = 0;
                     for (int q = predOffset[j]; q < predOffset[j + 1]; q++) {
@@ -225,9 +200,15 @@ public final class ForwardBackward {
                     c += v;
                 }
             }
+            if (!(c > 0)) {
+                throw new ImpossibleSequenceException(t);
+            }
             double inv = 1.0 / c;
             for (int j = 0; j < k; j++) {
                 alpha[off + j] *= inv;
+            }
+            if (scale != null) {
+                scale.multiply(c);
             }
         }
     }
