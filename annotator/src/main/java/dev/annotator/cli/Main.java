@@ -30,6 +30,7 @@ public final class Main {
         cl.setOut(out);
         cl.setErr(err);
         cl.setCaseInsensitiveEnumValuesAllowed(true);
+        cl.setUsageHelpWidth(100);
         cl.setParameterExceptionHandler((ex, a) -> {
             CommandLine cmd = ex.getCommandLine();
             err.println("annotator: error: " + oneLine(ex.getMessage()) + " (see '" + cmd.getCommandSpec().qualifiedName()
