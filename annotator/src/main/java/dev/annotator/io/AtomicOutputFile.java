@@ -21,12 +21,16 @@ public final class AtomicOutputFile implements AutoCloseable {
     private final Path target;
     private final Path temporary;
     private final OutputStream stream;
+    // removes the temporary file if the process is interrupted (SIGINT, SIGTERM) before commit or close
+    private final Thread cleanupOnExit;
     private boolean committed;
 
     private AtomicOutputFile(Path target, Path temporary, OutputStream stream) {
         this.target = target;
         this.temporary = temporary;
         this.stream = stream;
+        this.cleanupOnExit = new Thread(() -> deleteQuietly(temporary), "annotator-output-cleanup");
+        Runtime.getRuntime().addShutdownHook(cleanupOnExit);
     }
 
     /**
@@ -71,6 +75,7 @@ public final class AtomicOutputFile implements AutoCloseable {
                 Files.move(temporary, target, StandardCopyOption.REPLACE_EXISTING);
             }
             committed = true;
+            forgetCleanup();
         } catch (IOException e) {
             throw new IoFailureException(target + ": write failed (" + reason(e) + ")", e);
         }
@@ -87,8 +92,21 @@ public final class AtomicOutputFile implements AutoCloseable {
         } catch (IOException ignored) {
             // the output is being discarded; the original failure is what the user needs to see
         }
+        deleteQuietly(temporary);
+        forgetCleanup();
+    }
+
+    private void forgetCleanup() {
         try {
-            Files.deleteIfExists(temporary);
+            Runtime.getRuntime().removeShutdownHook(cleanupOnExit);
+        } catch (IllegalStateException shuttingDown) {
+            // the hook is running or about to; it deletes a file that may already be gone, which is harmless
+        }
+    }
+
+    private static void deleteQuietly(Path file) {
+        try {
+            Files.deleteIfExists(file);
         } catch (IOException ignored) {
             // nothing more can be done; the temporary name is hidden and marked .partial
         }
