@@ -65,7 +65,9 @@ final class DemoCommand implements Callable<Integer> {
                 report.fasta().getFileName(), report.truth().getFileName(), report.predicted().getFileName());
         w.println();
         w.println(Caution.TEXT);
-        w.flush();
+        if (w.checkError()) {
+            throw new IoFailureException("<stdout>: write failed");
+        }
         return 0;
     }
 
