@@ -26,8 +26,10 @@ import java.util.concurrent.Callable;
         footer = {
                 "Examples:",
                 "  annotator annotate -m cpg-island -o islands.gff3 contigs.fa",
-                "  zcat assembly.fa.gz | annotator annotate -m cpg-island --min-length 200 - > islands.gff3",
-                "  annotator annotate -m my-model.json --decode viterbi --threads 2 -o calls.gff3 genome.fa.gz",
+                "  zcat assembly.fa.gz | annotator annotate -m cpg-island --min-length 200 - \\",
+                "      > islands.gff3",
+                "  annotator annotate -m my-model.json --decode viterbi --threads 2 \\",
+                "      -o calls.gff3 genome.fa.gz",
                 "",
                 "Segments: with posterior decoding, maximal runs where a reported label's posterior exceeds 0.5; "
                         + "with Viterbi, runs of the label on the most probable path. Score = mean posterior.",

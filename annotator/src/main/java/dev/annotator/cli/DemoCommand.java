@@ -10,6 +10,10 @@ import picocli.CommandLine.ParentCommand;
 
 import java.io.IOException;
 import java.io.PrintWriter;
+import java.nio.file.AccessDeniedException;
+import java.nio.file.FileAlreadyExistsException;
+import java.nio.file.FileSystemException;
+import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 import java.util.Locale;
 import java.util.concurrent.Callable;
@@ -38,7 +42,7 @@ final class DemoCommand implements Callable<Integer> {
             report = new DemoScenario(ModelLoader.load("cpg-island"))
                     .run(out, Runtime.getRuntime().availableProcessors());
         } catch (IOException e) {
-            throw new IoFailureException(out + ": " + e.getMessage(), e);
+            throw new IoFailureException(describe(out, e), e);
         }
         PrintWriter w = new PrintWriter(parent.streams().out(), true);
         w.println("Screening batch: synthetic constructs and one simulated contig (all sampled from cpg-island, seed "
@@ -61,8 +65,27 @@ final class DemoCommand implements Callable<Integer> {
                 report.fasta().getFileName(), report.truth().getFileName(), report.predicted().getFileName());
         w.println();
         w.println(Caution.TEXT);
-        w.flush();
+        if (w.checkError()) {
+            throw new IoFailureException("<stdout>: write failed");
+        }
         return 0;
+    }
+
+    /**
+     * A FileSystemException's message is often the bare path (a file where the directory should be, a parent
+     * that cannot hold directories), which alone does not say what went wrong.
+     */
+    static String describe(Path out, IOException e) {
+        if (!(e instanceof FileSystemException f)) {
+            return out + ": " + e.getMessage();
+        }
+        String what = e instanceof FileAlreadyExistsException ? "exists and is not a directory"
+                : e instanceof AccessDeniedException ? "permission denied"
+                : e instanceof NoSuchFileException ? "cannot be created (no such file or directory)"
+                : f.getReason() != null ? f.getReason() : e.getClass().getSimpleName();
+        boolean aboutOut = f.getFile() == null
+                || Path.of(f.getFile()).toAbsolutePath().normalize().equals(out.toAbsolutePath().normalize());
+        return out + ": " + (aboutOut ? "" : f.getFile() + ": ") + what;
     }
 
     private static String line(String name, long length, ComparisonResult c) {

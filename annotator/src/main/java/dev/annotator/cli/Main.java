@@ -4,6 +4,8 @@ import dev.annotator.error.AnnotatorException;
 import dev.annotator.error.ExitCodes;
 import picocli.CommandLine;
 
+import java.io.FileDescriptor;
+import java.io.FileOutputStream;
 import java.io.InputStream;
 import java.io.OutputStream;
 import java.io.OutputStreamWriter;
@@ -18,7 +20,9 @@ public final class Main {
     }
 
     public static void main(String[] args) {
-        System.exit(run(args, System.in, System.out, System.err));
+        // System.out is a PrintStream, which swallows write errors; the descriptor itself reports them, so a full
+        // disk or a closed pipe on standard output ends the run with exit 74 instead of a silent 0
+        System.exit(run(args, System.in, new FileOutputStream(FileDescriptor.out), System.err));
     }
 
     /** Runs one command line on the given streams and returns the exit status (for tests and for embedding). */
@@ -54,6 +58,11 @@ public final class Main {
         });
         int code = cl.execute(args);
         out.flush();
+        // help, version and the listing commands print through this PrintWriter, which also swallows errors
+        if (code == ExitCodes.OK && out.checkError()) {
+            err.println("annotator: error: <stdout>: write failed");
+            code = ExitCodes.IO;
+        }
         err.flush();
         return code;
     }

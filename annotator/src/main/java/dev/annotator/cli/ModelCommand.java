@@ -13,7 +13,8 @@ import picocli.CommandLine.Model.CommandSpec;
         description = "Work with a model file.",
         subcommands = ModelCommand.Check.class,
         footerHeading = "%n",
-        footer = {"Example:", "  annotator model check my-model.json", "", Caution.TEXT})
+        footer = {"Examples:", "  annotator model check cpg-island", "  annotator model check my-model.json", "",
+                Caution.TEXT})
 final class ModelCommand implements Runnable {
     @Spec
     CommandSpec spec;

@@ -11,7 +11,7 @@ import java.io.PrintWriter;
 @Command(name = "models", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
         description = "List the models shipped inside annotator; use a name with -m.",
         footerHeading = "%n",
-        footer = {"Example:", "  annotator models", "", Caution.TEXT})
+        footer = {"Examples:", "  annotator models", "", Caution.TEXT})
 final class ModelsCommand implements Runnable {
     @Spec
     CommandSpec spec;
