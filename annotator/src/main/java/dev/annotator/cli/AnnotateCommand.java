@@ -51,7 +51,7 @@ final class AnnotateCommand implements Callable<Integer> {
             description = "GFF3 output file (default: standard output). Written only if the run succeeds.")
     String output;
 
-    @Option(names = "--decode", paramLabel = "METHOD", defaultValue = "posterior",
+    @Option(names = "--decode", paramLabel = "METHOD", defaultValue = "posterior", converter = DecodeMethodConverter.class,
             description = "posterior (default) or viterbi.")
     DecodeMethod decode;
 

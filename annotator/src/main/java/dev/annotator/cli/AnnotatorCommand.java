@@ -23,7 +23,7 @@ import picocli.CommandLine.ScopeType;
                 "",
                 "Exit status: 0 success, 2 bad command line, 65 bad input data, 66 missing input, "
                         + "74 read/write failure, 70 internal error."})
-public final class AnnotatorCommand implements Runnable {
+public final class AnnotatorCommand implements java.util.concurrent.Callable<Integer> {
 
     private final Streams streams;
 
@@ -42,8 +42,10 @@ public final class AnnotatorCommand implements Runnable {
     @picocli.CommandLine.Spec
     picocli.CommandLine.Model.CommandSpec spec;
 
+    /** Without a subcommand there is nothing to do: show the usage on stderr and fail as a usage error. */
     @Override
-    public void run() {
-        spec.commandLine().usage(spec.commandLine().getOut());
+    public Integer call() {
+        spec.commandLine().usage(spec.commandLine().getErr());
+        return dev.annotator.error.ExitCodes.USAGE;
     }
 }

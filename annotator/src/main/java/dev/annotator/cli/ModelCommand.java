@@ -15,13 +15,15 @@ import picocli.CommandLine.Model.CommandSpec;
         footerHeading = "%n",
         footer = {"Examples:", "  annotator model check cpg-island", "  annotator model check my-model.json", "",
                 Caution.TEXT})
-final class ModelCommand implements Runnable {
+final class ModelCommand implements java.util.concurrent.Callable<Integer> {
     @Spec
     CommandSpec spec;
 
+    /** Without a subcommand there is nothing to do: show the usage on stderr and fail as a usage error. */
     @Override
-    public void run() {
-        spec.commandLine().usage(spec.commandLine().getOut());
+    public Integer call() {
+        spec.commandLine().usage(spec.commandLine().getErr());
+        return dev.annotator.error.ExitCodes.USAGE;
     }
 
     @Command(name = "check", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,

@@ -2,7 +2,8 @@ package dev.annotator.cli;
 
 import dev.annotator.io.AtomicOutputFile;
 
-import java.io.BufferedWriter;
+import java.io.BufferedOutputStream;
+import java.io.IOException;
 import java.io.OutputStream;
 import java.io.OutputStreamWriter;
 import java.io.Writer;
@@ -10,29 +11,41 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 
 /**
- * Where a command's text output goes: stdout for "-" or no path, else a file that appears only on success.
+ * Where a command's output goes: stdout for "-" or no path, else a file that appears only on success. Write
+ * bytes to {@link #stream()} or text to {@link #writer()}, not both.
  */
 final class OutputTarget implements AutoCloseable {
     private final AtomicOutputFile file;
-    private final Writer writer;
+    private final OutputStream stream;
     private final String name;
+    private Writer writer;
 
-    private OutputTarget(AtomicOutputFile file, Writer writer, String name) {
+    private OutputTarget(AtomicOutputFile file, OutputStream stream, String name) {
         this.file = file;
-        this.writer = writer;
+        this.stream = stream;
         this.name = name;
     }
 
+    static boolean isStdout(String pathOrDash) {
+        return pathOrDash == null || pathOrDash.equals("-");
+    }
+
     static OutputTarget open(String pathOrDash, OutputStream stdout) {
-        if (pathOrDash == null || pathOrDash.equals("-")) {
-            return new OutputTarget(null, new BufferedWriter(new OutputStreamWriter(stdout, StandardCharsets.UTF_8),
-                    1 << 16), "<stdout>");
+        if (isStdout(pathOrDash)) {
+            return new OutputTarget(null, new BufferedOutputStream(stdout, 1 << 16), "<stdout>");
         }
         AtomicOutputFile f = AtomicOutputFile.create(Path.of(pathOrDash));
-        return new OutputTarget(f, new OutputStreamWriter(f.stream(), StandardCharsets.UTF_8), pathOrDash);
+        return new OutputTarget(f, f.stream(), pathOrDash);
+    }
+
+    OutputStream stream() {
+        return stream;
     }
 
     Writer writer() {
+        if (writer == null) {
+            writer = new OutputStreamWriter(stream, StandardCharsets.UTF_8);
+        }
         return writer;
     }
 
@@ -41,8 +54,11 @@ final class OutputTarget implements AutoCloseable {
     }
 
     /** Flushes; for a file, moves it into place. */
-    void commit() throws java.io.IOException {
-        writer.flush();
+    void commit() throws IOException {
+        if (writer != null) {
+            writer.flush();
+        }
+        stream.flush();
         if (file != null) {
             file.commit();
         }

@@ -1,7 +1,6 @@
 package dev.annotator.cli;
 
 import dev.annotator.error.IoFailureException;
-import dev.annotator.io.AtomicOutputFile;
 import dev.annotator.model.HmmModel;
 import dev.annotator.model.ModelLoader;
 import dev.annotator.pipeline.SimulationRun;
@@ -10,12 +9,9 @@ import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
+import picocli.CommandLine.ParentCommand;
 
 import java.io.IOException;
-import java.io.OutputStreamWriter;
-import java.io.Writer;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Path;
 import java.util.concurrent.Callable;
 
 @Command(name = "simulate", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
@@ -34,6 +30,9 @@ final class SimulateCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
+    @ParentCommand
+    AnnotatorCommand parent;
+
     @Option(names = {"-m", "--model"}, required = true, paramLabel = "MODEL",
             description = "Model file (JSON) or the name of a shipped model.")
     String model;
@@ -47,11 +46,12 @@ final class SimulateCommand implements Callable<Integer> {
     @Option(names = "--seed", paramLabel = "S", defaultValue = "1", description = "Random seed (default: ${DEFAULT-VALUE}).")
     long seed;
 
-    @Option(names = {"-o", "--output"}, required = true, paramLabel = "OUT.fa", description = "FASTA output file.")
-    Path output;
+    @Option(names = {"-o", "--output"}, required = true, paramLabel = "OUT.fa",
+            description = "FASTA output file, or - for standard output.")
+    String output;
 
     @Option(names = "--truth", paramLabel = "TRUTH.gff3", description = "Also write the true segments as GFF3.")
-    Path truth;
+    String truth;
 
     @Override
     public Integer call() {
@@ -61,14 +61,15 @@ final class SimulateCommand implements Callable<Integer> {
         if (records < 1) {
             throw new ParameterException(spec.commandLine(), "--records must be at least 1, got " + records);
         }
+        if (truth != null && OutputTarget.isStdout(output) && OutputTarget.isStdout(truth)) {
+            throw new ParameterException(spec.commandLine(), "-o and --truth cannot both be standard output");
+        }
         HmmModel hmm = ModelLoader.load(model);
-        try (AtomicOutputFile fasta = AtomicOutputFile.create(output);
-             AtomicOutputFile truthFile = truth == null ? null : AtomicOutputFile.create(truth)) {
-            Writer truthWriter = truthFile == null ? null
-                    : new OutputStreamWriter(truthFile.stream(), StandardCharsets.UTF_8);
-            new SimulationRun(hmm).write("sim", length, records, seed, fasta.stream(), truthWriter);
-            if (truthWriter != null) {
-                truthWriter.flush();
+        try (OutputTarget fasta = OutputTarget.open(output, parent.streams().out());
+             OutputTarget truthFile = truth == null ? null : OutputTarget.open(truth, parent.streams().out())) {
+            new SimulationRun(hmm).write("sim", length, records, seed, fasta.stream(),
+                    truthFile == null ? null : truthFile.writer());
+            if (truthFile != null) {
                 truthFile.commit();
             }
             fasta.commit();

@@ -16,28 +16,62 @@ import java.util.UUID;
  * the same directory (so the final rename stays on one file system and is atomic), {@link #commit()} renames
  * it into place, and {@link #close()} without a commit deletes it. A failed or interrupted run therefore never
  * leaves a partial file at the target path.
+ *
+ * <p>A symbolic link is followed: the file it points to is replaced, the link stays. A target that exists and is
+ * not a regular file (a device such as /dev/null or /dev/stdout, a named pipe) cannot be replaced by renaming, so
+ * it is written directly.
  */
 public final class AtomicOutputFile implements AutoCloseable {
     private final Path target;
+    private final Path destination;
     private final Path temporary;
     private final OutputStream stream;
     // removes the temporary file if the process is interrupted (SIGINT, SIGTERM) before commit or close
     private final Thread cleanupOnExit;
     private boolean committed;
 
-    private AtomicOutputFile(Path target, Path temporary, OutputStream stream) {
+    /**
+     * @param target      the path as the user gave it (for messages)
+     * @param destination where the file lands (a link's target resolved)
+     * @param temporary   null when writing directly to a device or pipe
+     */
+    private AtomicOutputFile(Path target, Path destination, Path temporary, OutputStream stream) {
         this.target = target;
+        this.destination = destination;
         this.temporary = temporary;
         this.stream = stream;
-        this.cleanupOnExit = new Thread(() -> deleteQuietly(temporary), "annotator-output-cleanup");
-        Runtime.getRuntime().addShutdownHook(cleanupOnExit);
+        if (temporary != null) {
+            this.cleanupOnExit = new Thread(() -> deleteQuietly(temporary), "annotator-output-cleanup");
+            Runtime.getRuntime().addShutdownHook(cleanupOnExit);
+        } else {
+            this.cleanupOnExit = null;
+        }
     }
 
     /**
      * @throws IoFailureException when the directory is missing or not writable
      */
     public static AtomicOutputFile create(Path target) {
+        if (Files.exists(target) && !Files.isRegularFile(target) && !Files.isDirectory(target)) {
+            try {
+                return new AtomicOutputFile(target, target, null, new BufferedOutputStream(Files.newOutputStream(target), 1 << 16));
+            } catch (IOException e) {
+                throw new IoFailureException(target + ": cannot write (" + reason(e) + ")", e);
+            }
+        }
         Path absolute = target.toAbsolutePath();
+        if (Files.isSymbolicLink(absolute)) {
+            try {
+                absolute = absolute.toRealPath();
+            } catch (IOException dangling) {
+                // the link points to a file not yet there: create that file, as writing through the link would
+                try {
+                    absolute = absolute.resolveSibling(Files.readSymbolicLink(absolute)).toAbsolutePath().normalize();
+                } catch (IOException e) {
+                    throw new IoFailureException(target + ": cannot follow link (" + reason(e) + ")", e);
+                }
+            }
+        }
         Path dir = absolute.getParent();
         if (dir == null || !Files.isDirectory(dir)) {
             throw new IoFailureException(target + ": output directory " + dir + " does not exist");
@@ -50,7 +84,7 @@ public final class AtomicOutputFile implements AutoCloseable {
             // renamed output has the permissions a user expects
             Path tmp = dir.resolve("." + absolute.getFileName() + "." + UUID.randomUUID() + ".partial");
             Files.createFile(tmp);
-            return new AtomicOutputFile(target, tmp, new BufferedOutputStream(Files.newOutputStream(tmp), 1 << 16));
+            return new AtomicOutputFile(target, absolute, tmp, new BufferedOutputStream(Files.newOutputStream(tmp), 1 << 16));
         } catch (IOException e) {
             throw new IoFailureException(target + ": cannot create output in " + dir + " (" + reason(e) + ")", e);
         }
@@ -69,10 +103,14 @@ public final class AtomicOutputFile implements AutoCloseable {
     public void commit() {
         try {
             stream.close();
+            if (temporary == null) {
+                committed = true;
+                return;
+            }
             try {
-                Files.move(temporary, target, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
+                Files.move(temporary, destination, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
             } catch (AtomicMoveNotSupportedException e) {
-                Files.move(temporary, target, StandardCopyOption.REPLACE_EXISTING);
+                Files.move(temporary, destination, StandardCopyOption.REPLACE_EXISTING);
             }
             committed = true;
             forgetCleanup();
@@ -92,11 +130,16 @@ public final class AtomicOutputFile implements AutoCloseable {
         } catch (IOException ignored) {
             // the output is being discarded; the original failure is what the user needs to see
         }
-        deleteQuietly(temporary);
+        if (temporary != null) {
+            deleteQuietly(temporary);
+        }
         forgetCleanup();
     }
 
     private void forgetCleanup() {
+        if (cleanupOnExit == null) {
+            return;
+        }
         try {
             Runtime.getRuntime().removeShutdownHook(cleanupOnExit);
         } catch (IllegalStateException shuttingDown) {
@@ -113,6 +156,13 @@ public final class AtomicOutputFile implements AutoCloseable {
     }
 
     static String reason(IOException e) {
+        if (e instanceof java.nio.file.FileSystemException fse && fse.getReason() != null) {
+            // the plain reason ("Permission denied"); the message would name our hidden temporary file
+            return fse.getReason().toLowerCase(java.util.Locale.ROOT);
+        }
+        if (e instanceof java.nio.file.AccessDeniedException) {
+            return "permission denied";
+        }
         String m = e.getMessage();
         return m == null ? e.getClass().getSimpleName() : m;
     }

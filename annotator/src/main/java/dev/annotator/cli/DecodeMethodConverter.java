@@ -1,0 +1,19 @@
+package dev.annotator.cli;
+
+import dev.annotator.decode.DecodeMethod;
+import picocli.CommandLine.ITypeConverter;
+import picocli.CommandLine.TypeConversionException;
+
+import java.util.Locale;
+
+/** Reads --decode in the lowercase spelling the help shows. */
+final class DecodeMethodConverter implements ITypeConverter<DecodeMethod> {
+    @Override
+    public DecodeMethod convert(String value) {
+        return switch (value.toLowerCase(Locale.ROOT)) {
+            case "posterior" -> DecodeMethod.POSTERIOR;
+            case "viterbi" -> DecodeMethod.VITERBI;
+            default -> throw new TypeConversionException("expected posterior or viterbi, got '" + value + "'");
+        };
+    }
+}
