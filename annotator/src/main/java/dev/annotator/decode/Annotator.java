@@ -1,5 +1,6 @@
 package dev.annotator.decode;
 
+import dev.annotator.hmm.BoundaryVectors;
 import dev.annotator.hmm.ForwardBackward;
 import dev.annotator.hmm.HmmParameters;
 import dev.annotator.hmm.Viterbi;
@@ -12,12 +13,17 @@ import dev.annotator.seq.SequenceRecord;
 import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.List;
+import java.util.concurrent.ForkJoinTask;
+import java.util.concurrent.RecursiveTask;
 
 /**
  * Decodes FASTA records with one model: the library entry point for embedding. Immutable and thread-safe; every
  * call works in its own memory, so records can be annotated in parallel with one instance.
  */
 public final class Annotator {
+    /** Length of the windows a long record is split into for posterior decoding (4 Mi bases). */
+    public static final int WINDOW = 1 << 22;
+
     private final HmmModel model;
     private final HmmParameters parameters;
     private final ReportedLabels labels;
@@ -26,11 +32,24 @@ public final class Annotator {
     private final int minLength;
     private final ForwardBackward forwardBackward;
     private final Viterbi viterbi;
+    private final int window;
 
     /**
      * @param minLength segments shorter than this many bases are dropped (0 or 1 keeps all)
      */
     public Annotator(HmmModel model, DecodeMethod method, int minLength) {
+        this(model, method, minLength, WINDOW);
+    }
+
+    /**
+     * @param window length of the windows long records are split into for posterior decoding (results agree with
+     *               undivided decoding within {@link BoundaryVectors#TOLERANCE}; output is stable for one window)
+     */
+    public Annotator(HmmModel model, DecodeMethod method, int minLength, int window) {
+        if (window < 1) {
+            throw new IllegalArgumentException("window must be positive");
+        }
+        this.window = window;
         this.model = model;
         this.parameters = ModelCompiler.compile(model);
         this.labels = ReportedLabels.of(model);
@@ -54,21 +73,43 @@ public final class Annotator {
     }
 
     /**
+     * Decodes one record. Posterior decoding splits records longer than {@link #WINDOW} bases into windows at
+     * fixed positions (multiples of {@link #WINDOW}, whatever the thread count, so output never depends on it);
+     * each window gets its boundary vectors from {@link BoundaryVectors} and the windows run in parallel when
+     * called from a fork-join pool (as {@code AnnotationPipeline} does with more than one thread). Viterbi
+     * decoding runs the record's path in one piece.
+     *
      * @throws dev.annotator.hmm.ImpossibleSequenceException if no state path of the model can emit the record
      */
     public RecordAnnotation annotate(SequenceRecord record) {
         byte[] bases = record.bases();
         List<RawSegment> raw;
         double logLik;
+        int k = parameters.stateCount();
         if (method == DecodeMethod.VITERBI) {
             ViterbiPath path = viterbi.decode(bases);
-            PathRuns runs = new PathRuns(labels, path.states(), stateToReported);
+            PathRuns runs = new PathRuns(labels, path.path(), stateToReported, k);
             logLik = forwardBackward.run(bases, runs);
             raw = runs.segments();
         } else {
-            PosteriorRuns runs = new PosteriorRuns(labels);
-            logLik = forwardBackward.run(bases, runs);
-            raw = runs.segments();
+            int n = bases.length;
+            int windows = Math.max(1, (int) ((n + (long) window - 1) / window));
+            List<WindowTask> tasks = new ArrayList<>(windows);
+            for (int w = 0; w < windows; w++) {
+                tasks.add(new WindowTask(bases, w * window, (int) Math.min(n, (long) (w + 1) * window)));
+            }
+            if (windows > 1 && ForkJoinTask.inForkJoinPool()) {
+                ForkJoinTask.invokeAll(tasks);
+            } else {
+                tasks.forEach(WindowTask::invoke);
+            }
+            raw = new ArrayList<>();
+            logLik = 0;
+            for (WindowTask task : tasks) {
+                raw.addAll(task.join().segments());
+                logLik += task.logLikelihood;
+            }
+            raw = WindowStitcher.stitch(raw);
         }
         List<Segment> segments = new ArrayList<>(raw.size());
         for (RawSegment r : raw) {
@@ -83,5 +124,28 @@ public final class Annotator {
         List<String> order = labels.labels().stream().map(Label::name).toList();
         segments.sort(Comparator.comparingInt(Segment::start).thenComparingInt(s -> order.indexOf(s.label())));
         return new RecordAnnotation(record.name(), bases.length, logLik, segments);
+    }
+
+    /** Posterior decoding of the bases [start, end) of one record, with exact boundary vectors. */
+    private final class WindowTask extends RecursiveTask<PosteriorRuns> {
+        private final byte[] bases;
+        private final int start;
+        private final int end;
+        private double logLikelihood;
+
+        WindowTask(byte[] bases, int start, int end) {
+            this.bases = bases;
+            this.start = start;
+            this.end = end;
+        }
+
+        @Override
+        protected PosteriorRuns compute() {
+            double[] before = start == 0 ? null : BoundaryVectors.forwardBefore(forwardBackward, bases, start);
+            double[] last = end == bases.length ? null : BoundaryVectors.backwardAt(forwardBackward, bases, end - 1);
+            PosteriorRuns runs = new PosteriorRuns(labels, start, parameters.stateCount());
+            logLikelihood = forwardBackward.runRange(bases, start, end, before, last, runs);
+            return runs;
+        }
     }
 }

@@ -28,22 +28,31 @@ final class SegmentAccumulator {
         count = 0;
     }
 
-    /** The label's posterior at one base: the sum over its states. */
-    static double labelPosterior(boolean[] inLabel, double[] posterior) {
+    /** The label's posterior at one base (the row at {@code off}): the sum over its states. */
+    static double labelPosterior(boolean[] inLabel, double[] posterior, int off) {
         double p = 0;
-        for (int s = 0; s < posterior.length; s++) {
+        for (int s = 0; s < inLabel.length; s++) {
             if (inLabel[s]) {
-                p += posterior[s];
+                p += posterior[off + s];
             }
         }
         return p;
     }
 
-    void add(double[] posterior, double[] emission) {
-        add(labelPosterior(inLabel, posterior), posterior, emission);
+    /** Adds the base whose posterior and emission rows start at {@code off}. */
+    void add(double[] posterior, double[] emission, int off) {
+        add(labelPosterior(inLabel, posterior, off), posterior, emission, off);
     }
 
-    void add(double labelPosterior, double[] posterior, double[] emission) {
+    /** Joins the statistics of an adjacent piece of the same segment (a segment cut by a window boundary). */
+    void merge(SegmentAccumulator other) {
+        posteriorSum += other.posteriorSum;
+        posteriorMin = Math.min(posteriorMin, other.posteriorMin);
+        logOdds += other.logOdds;
+        count += other.count;
+    }
+
+    void add(double labelPosterior, double[] posterior, double[] emission, int off) {
         posteriorSum += labelPosterior;
         posteriorMin = Math.min(posteriorMin, labelPosterior);
         count++;
@@ -53,14 +62,15 @@ final class SegmentAccumulator {
         double outWeighted = 0;
         double outPlain = 0;
         int outCount = 0;
-        for (int s = 0; s < posterior.length; s++) {
+        for (int s = 0; s < inLabel.length; s++) {
+            double e = emission[off + s];
             if (inLabel[s]) {
-                inWeighted += posterior[s] * emission[s];
-                inPlain += emission[s];
+                inWeighted += posterior[off + s] * e;
+                inPlain += e;
                 inCount++;
             } else {
-                outWeighted += posterior[s] * emission[s];
-                outPlain += emission[s];
+                outWeighted += posterior[off + s] * e;
+                outPlain += e;
                 outCount++;
             }
         }

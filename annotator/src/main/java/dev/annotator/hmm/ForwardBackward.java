@@ -1,27 +1,45 @@
 package dev.annotator.hmm;
 
+import java.util.Arrays;
+
 /**
  * Scaled forward-backward over any topology with k-th order emissions, in memory that does not grow with
  * length x states.
  *
- * <p>Checkpointing: the first forward pass keeps only the normalised forward vector at the start of every block
- * of {@link #blockSize()} bases. The backward pass then walks the blocks from last to first; for each block it
- * recomputes the forward vectors and emissions of that block from its checkpoint, and runs the backward
- * recursion through it. The result is exact (the same arithmetic as keeping every forward vector) at the cost
- * of a second forward pass; memory is O(length / block x states + block x states).
+ * <p>Checkpointing: the forward pass keeps only the forward vector at the end of every block of
+ * {@link #blockSize()} bases. The backward pass walks the blocks from last to first; for each block it recomputes
+ * the block's forward vectors from the checkpoint before it, runs the backward recursion through the block, and
+ * hands the block's posteriors to a sink. The recomputation repeats the same arithmetic, so results do not depend
+ * on the block size; memory is O(length / block x states + block x states).
  *
- * <p>Scaling: forward vectors are normalised to sum 1 at every base and the scale factors' logs are summed
- * (into the log-likelihood); backward vectors are normalised to sum 1 as well, since only their ratios matter
- * for posteriors. Everything stays in linear space, so there is no log or exp in the inner loop.
+ * <p>Scaling: vectors stay in linear space and are multiplied by 2^256 (exact) whenever their sum falls below
+ * 2^-256; the log-likelihood is the log of the final sum corrected by the count of those steps. No log, exp or
+ * division per base in the forward and backward recursions; posteriors take one division per base.
  *
- * <p>Instances are immutable and can be shared across threads; each call allocates its own work arrays.
+ * <p>Ranges: {@link #runRange} decodes part of a sequence given the forward vector before it and the backward
+ * vector at its last base, which is how a long record is split into windows decoded in parallel.
+ *
+ * <p>Two-state models take a dedicated path with the transitions in registers; larger models use the sparse
+ * transition lists (cost proportional to allowed transitions). Instances are immutable and thread-safe; every
+ * call allocates its own work arrays.
  */
 public final class ForwardBackward {
-    /** Default block length: the block's work arrays stay within a few hundred kB for small topologies. */
+    /** Default block length: a block's work arrays stay within a few hundred kB for small topologies. */
     public static final int DEFAULT_BLOCK = 1 << 14;
+    private static final double RESCALE_BELOW = 0x1p-256;
+    private static final double RESCALE_BY = 0x1p256;
+    private static final double LOG_RESCALE = 256 * Math.log(2);
 
     private final HmmParameters p;
+    private final int k;
     private final int blockSize;
+    private final EmissionSymbols symbols;
+    private final double[] em;
+    private final boolean twoStates;
+    private final double a00;
+    private final double a01;
+    private final double a10;
+    private final double a11;
 
     public ForwardBackward(HmmParameters parameters) {
         this(parameters, DEFAULT_BLOCK);
@@ -32,184 +50,395 @@ public final class ForwardBackward {
             throw new IllegalArgumentException("block size must be positive");
         }
         this.p = parameters;
+        this.k = parameters.stateCount();
         this.blockSize = blockSize;
+        this.symbols = new EmissionSymbols(parameters);
+        this.em = symbols.table;
+        this.twoStates = k == 2;
+        this.a00 = twoStates ? parameters.transition(0, 0) : 0;
+        this.a01 = twoStates ? parameters.transition(0, 1) : 0;
+        this.a10 = twoStates ? parameters.transition(1, 0) : 0;
+        this.a11 = twoStates ? parameters.transition(1, 1) : 0;
     }
 
     public int blockSize() {
         return blockSize;
     }
 
+    public int stateCount() {
+        return k;
+    }
+
     /** Natural log of P(seq | model) by the forward algorithm alone. */
     public double logLikelihood(byte[] seq) {
-        return forward(seq, null);
+        return runRange(seq, 0, seq.length, null, null, null);
     }
 
     /**
-     * Runs forward-backward over the whole sequence and hands every position's state posteriors to the sink,
-     * from the last position to the first.
+     * Whole-sequence forward-backward, one position at a time to the sink, from the last position to the first.
      *
      * @return natural log of P(seq | model)
      * @throws ImpossibleSequenceException if the model cannot emit the sequence
      */
     public double run(byte[] seq, PosteriorSink sink) {
-        int n = seq.length;
-        int k = p.stateCount();
-        if (n == 0) {
+        double[] gamma = new double[k];
+        double[] e = new double[k];
+        return run(seq, (start, end, posterior, emission) -> {
+            for (int t = end - 1; t >= start; t--) {
+                System.arraycopy(posterior, (t - start) * k, gamma, 0, k);
+                System.arraycopy(emission, (t - start) * k, e, 0, k);
+                sink.accept(t, gamma, e);
+            }
+        });
+    }
+
+    /** Whole-sequence forward-backward, a block at a time to the sink; returns ln P(seq | model). */
+    public double run(byte[] seq, PosteriorBlockSink sink) {
+        return runRange(seq, 0, seq.length, null, null, sink);
+    }
+
+    /**
+     * Forward-backward over the bases {@code [from, to)} of {@code seq}.
+     *
+     * @param before forward vector of base from-1 (any positive scale), or null when {@code from} starts the
+     *               record: the start distribution applies to the first base
+     * @param last   backward vector of base to-1 (any positive scale), or null when {@code to} ends the record
+     * @param sink   receives the posteriors of every base in the range, last block first; null for the
+     *               forward pass alone
+     * @return natural log of P(x[from, to) | forward vector before the range, normalised to sum 1)
+     * @throws ImpossibleSequenceException if no state path can emit the range
+     */
+    public double runRange(byte[] seq, int from, int to, double[] before, double[] last, PosteriorBlockSink sink) {
+        int n = to - from;
+        if (n <= 0) {
             return 0.0;
         }
         int blocks = (n + blockSize - 1) / blockSize;
-        double[] checkpoints = new double[blocks * k];
-        double logLik = forward(seq, checkpoints);
-
         int maxLen = Math.min(blockSize, n);
+        int[] sy = new int[maxLen];
         double[] alpha = new double[maxLen * k];
-        double[] emis = new double[maxLen * k];
-        double[] beta = new double[k];
-        double[] nextBeta = new double[k];
-        double[] nextEmis = new double[k];
-        double[] weighted = new double[k];
-        double[] gamma = new double[k];
-        double[] eAt = new double[k];
-        double[] before = new double[k];
-        int[] succOffset = p.succOffset();
-        int[] succState = p.succState();
-        double[] succProb = p.succProb();
-        EmissionTrack track = new EmissionTrack(p);
+        double[] vec = initialVector(before);
+        double[] checkpoints = sink == null ? null : new double[blocks * k];
 
-        for (int b = blocks - 1; b >= 0; b--) {
-            int start = b * blockSize;
-            int end = Math.min(n, start + blockSize);
-            System.arraycopy(checkpoints, b * k, before, 0, k);
-            track.seek(seq, start);
-            forwardBlock(seq, start, end, before, alpha, emis, track, null);
-            for (int t = end - 1; t >= start; t--) {
-                if (t == n - 1) {
-                    java.util.Arrays.fill(beta, 1.0 / k);
-                } else {
-                    // beta_t(i) = sum_j a_ij e_j(t+1) beta_{t+1}(j)
-                    double[] eNext;
-                    int eNextOff;
-                    if (t + 1 < end) {
-                        eNext = emis;
-                        eNextOff = (t + 1 - start) * k;
-                    } else {
-                        eNext = nextEmis;
-                        eNextOff = 0;
-                    }
-                    for (int j = 0; j < k; j++) {
-                        weighted[j] = eNext[eNextOff + j] * nextBeta[j];
-                    }
-                    double sum = 0;
-                    for (int i = 0; i < k; i++) {
-                        double s = 0;
-                        for (int q = succOffset[i]; q < succOffset[i + 1]; q++) {
-                            s += succProb[q] * weighted[succState[q]];
-                        }
-                        beta[i] = s;
-                        sum += s;
-                    }
-                    double inv = 1.0 / sum;
-                    for (int i = 0; i < k; i++) {
-                        beta[i] *= inv;
-                    }
-                }
-                int off = (t - start) * k;
-                double z = 0;
-                for (int i = 0; i < k; i++) {
-                    double g = alpha[off + i] * beta[i];
-                    gamma[i] = g;
-                    z += g;
-                }
-                double invZ = 1.0 / z;
-                for (int i = 0; i < k; i++) {
-                    gamma[i] *= invZ;
-                    eAt[i] = emis[off + i];
-                }
-                sink.accept(t, gamma, eAt);
-                double[] swap = nextBeta;
-                nextBeta = beta;
-                beta = swap;
+        // forward pass
+        long rescales = 0;
+        for (int b = 0; b < blocks; b++) {
+            int start = from + b * blockSize;
+            int end = Math.min(to, start + blockSize);
+            if (checkpoints != null) {
+                System.arraycopy(vec, 0, checkpoints, b * k, k);
             }
-            System.arraycopy(emis, 0, nextEmis, 0, k);
+            symbols.encode(seq, start, end, sy);
+            rescales += forwardSpan(sy, end - start, vec, before == null && b == 0, alpha, start);
+            System.arraycopy(alpha, (end - start - 1) * k, vec, 0, k);
+        }
+        double sum = 0;
+        for (int s = 0; s < k; s++) {
+            sum += vec[s];
+        }
+        double logLik = Math.log(sum) - rescales * LOG_RESCALE;
+        if (sink == null) {
+            return logLik;
+        }
+
+        // backward pass, recomputing each block's forward vectors from its checkpoint
+        double[] beta = new double[k];
+        double[] post = new double[maxLen * k];
+        double[] emis = new double[maxLen * k];
+        double[] weighted = new double[k];
+        int nextSymbol = -1;
+        if (last == null) {
+            Arrays.fill(beta, 1.0);
+        } else {
+            System.arraycopy(last, 0, beta, 0, k);
+        }
+        for (int b = blocks - 1; b >= 0; b--) {
+            int start = from + b * blockSize;
+            int end = Math.min(to, start + blockSize);
+            int len = end - start;
+            System.arraycopy(checkpoints, b * k, vec, 0, k);
+            symbols.encode(seq, start, end, sy);
+            forwardSpan(sy, len, vec, before == null && b == 0, alpha, start);
+            backwardSpan(sy, len, nextSymbol, beta, alpha, post, weighted);
+            for (int i = 0; i < len; i++) {
+                System.arraycopy(em, sy[i] * k, emis, i * k, k);
+            }
+            sink.block(start, end, post, emis);
+            nextSymbol = sy[0];
         }
         return logLik;
     }
 
     /**
-     * Forward pass, block by block through the same code that the backward pass uses to recompute a block; keeps
-     * the normalised forward vector that precedes each block (block 0 has none: it starts from the start
-     * distribution) when {@code checkpoints} is not null.
+     * Normalised forward vector of base to-1 after the bases {@code [from, to)}, starting from {@code before}
+     * (null: the start distribution at base {@code from}). No storage beyond one block.
      */
-    private double forward(byte[] seq, double[] checkpoints) {
-        int n = seq.length;
-        int k = p.stateCount();
-        if (n == 0) {
-            return 0.0;
+    public double[] forwardVector(byte[] seq, int from, int to, double[] before) {
+        int n = to - from;
+        double[] vec = initialVector(before);
+        if (n <= 0) {
+            return vec;
         }
         int maxLen = Math.min(blockSize, n);
+        int[] sy = new int[maxLen];
         double[] alpha = new double[maxLen * k];
-        double[] emis = new double[maxLen * k];
-        double[] carried = new double[k];
-        EmissionTrack track = new EmissionTrack(p);
-        LogScaleAccumulator scale = new LogScaleAccumulator();
-        track.seek(seq, 0);
-        for (int start = 0, block = 0; start < n; start += blockSize, block++) {
-            int end = Math.min(n, start + blockSize);
-            forwardBlock(seq, start, end, carried, alpha, emis, track, scale);
-            System.arraycopy(alpha, (end - 1 - start) * k, carried, 0, k);
-            if (checkpoints != null && end < n) {
-                System.arraycopy(carried, 0, checkpoints, (block + 1) * k, k);
-            }
+        for (int start = from, b = 0; start < to; start += blockSize, b++) {
+            int end = Math.min(to, start + blockSize);
+            symbols.encode(seq, start, end, sy);
+            forwardSpan(sy, end - start, vec, before == null && b == 0, alpha, start);
+            System.arraycopy(alpha, (end - start - 1) * k, vec, 0, k);
         }
-        return scale.log();
+        return normalised(vec);
     }
 
     /**
-     * Forward vectors (normalised) and emissions of the bases {@code [start, end)}, continuing from the forward
-     * vector {@code before} of base start-1 (unused for start 0). The track must be positioned at {@code start}.
-     *
-     * @param scale receives the scale factors (the first pass), or null when recomputing
+     * Normalised backward vector of base {@code from} given the backward vector of base to-1 ({@code last}; null
+     * when to-1 is the record's last base).
      */
-    private void forwardBlock(byte[] seq, int start, int end, double[] before, double[] alpha, double[] emis,
-                              EmissionTrack track, LogScaleAccumulator scale) {
-        int k = p.stateCount();
-        double[] startProb = p.startArray();
-        int[] predOffset = p.predOffset();
-        int[] predState = p.predState();
-        double[] predProb = p.predProb();
-        for (int t = start; t < end; t++) {
-            int off = (t - start) * k;
-            track.emit(seq[t], emis, off);
-            double c = 0;
-            if (t == 0) {
+    public double[] backwardVector(byte[] seq, int from, int to, double[] last) {
+        double[] beta = last == null ? filled(1.0) : last.clone();
+        int n = to - from;
+        if (n <= 1) {
+            return normalised(beta);
+        }
+        double[] weighted = new double[k];
+        int maxLen = Math.min(blockSize, n);
+        int[] sy = new int[maxLen];
+        int nextSymbol = -1;
+        for (int end = to; end > from; end -= blockSize) {
+            int start = Math.max(from, end - blockSize);
+            int len = end - start;
+            symbols.encode(seq, start, end, sy);
+            backwardSpan(sy, len, nextSymbol, beta, null, null, weighted);
+            nextSymbol = sy[0];
+        }
+        return normalised(beta);
+    }
+
+    private double[] initialVector(double[] before) {
+        if (before == null) {
+            return new double[k];
+        }
+        if (before.length != k) {
+            throw new IllegalArgumentException("vector length " + before.length + " for " + k + " states");
+        }
+        return normalised(before);
+    }
+
+    private double[] filled(double v) {
+        double[] out = new double[k];
+        Arrays.fill(out, v);
+        return out;
+    }
+
+    private static double[] normalised(double[] v) {
+        double sum = 0;
+        for (double x : v) {
+            sum += x;
+        }
+        if (!(sum > 0)) {
+            throw new IllegalArgumentException("vector has no positive entry");
+        }
+        double[] out = new double[v.length];
+        for (int i = 0; i < v.length; i++) {
+            out[i] = v[i] / sum;
+        }
+        return out;
+    }
+
+    /**
+     * Forward recursion over {@code len} bases with symbols {@code sy}: row i of {@code alpha} gets the forward
+     * vector of base i, continuing from {@code prev} (the vector before the first base) unless {@code atStart},
+     * where the start distribution applies. Returns how many times the vectors were rescaled by 2^256.
+     *
+     * @param position0 position of the first base, for error messages
+     */
+    private int forwardSpan(int[] sy, int len, double[] prev, boolean atStart, double[] alpha, int position0) {
+        return twoStates ? forwardSpan2(sy, len, prev, atStart, alpha, position0)
+                : forwardSpanSparse(sy, len, prev, atStart, alpha, position0);
+    }
+
+    private int forwardSpan2(int[] sy, int len, double[] prev, boolean atStart, double[] alpha, int position0) {
+        final double[] e = em;
+        final double t00 = a00;
+        final double t01 = a01;
+        final double t10 = a10;
+        final double t11 = a11;
+        int rescales = 0;
+        double p0;
+        double p1;
+        int i = 0;
+        if (atStart) {
+            int y = sy[0] << 1;
+            p0 = p.start(0) * e[y];
+            p1 = p.start(1) * e[y + 1];
+            i = 1;
+            alpha[0] = p0;
+            alpha[1] = p1;
+            if (!(p0 + p1 > 0)) {
+                throw new ImpossibleSequenceException(position0);
+            }
+        } else {
+            p0 = prev[0];
+            p1 = prev[1];
+        }
+        for (; i < len; i++) {
+            int y = sy[i] << 1;
+            double n0 = (p0 * t00 + p1 * t10) * e[y];
+            double n1 = (p0 * t01 + p1 * t11) * e[y + 1];
+            double s = n0 + n1;
+            if (s < RESCALE_BELOW) {
+                if (!(s > 0)) {
+                    throw new ImpossibleSequenceException(position0 + i);
+                }
+                n0 *= RESCALE_BY;
+                n1 *= RESCALE_BY;
+                rescales++;
+            }
+            alpha[2 * i] = n0;
+            alpha[2 * i + 1] = n1;
+            p0 = n0;
+            p1 = n1;
+        }
+        return rescales;
+    }
+
+    private int forwardSpanSparse(int[] sy, int len, double[] prev, boolean atStart, double[] alpha, int position0) {
+        final double[] e = em;
+        final int[] predOffset = p.predOffset();
+        final int[] predState = p.predState();
+        final double[] predProb = p.predProb();
+        final double[] startProb = p.startArray();
+        int rescales = 0;
+        for (int i = 0; i < len; i++) {
+            int off = i * k;
+            int y = sy[i] * k;
+            double sum = 0;
+            if (i == 0 && atStart) {
                 for (int j = 0; j < k; j++) {
-                    double v = startProb[j] * emis[off + j];
+                    double v = startProb[j] * e[y + j];
                     alpha[off + j] = v;
-                    c += v;
+                    sum += v;
                 }
             } else {
-                double[] prev = t == start ? before : alpha;
-                int prevOff = t == start ? 0 : off - k;
+                double[] src = i == 0 ? prev : alpha;
+                int srcOff = i == 0 ? 0 : off - k;
                 for (int j = 0; j < k; j++) {
                     double s = 0;
                     for (int q = predOffset[j]; q < predOffset[j + 1]; q++) {
-                        s += prev[prevOff + predState[q]] * predProb[q];
+                        s += src[srcOff + predState[q]] * predProb[q];
                     }
-                    double v = s * emis[off + j];
+                    double v = s * e[y + j];
                     alpha[off + j] = v;
-                    c += v;
+                    sum += v;
                 }
             }
-            if (!(c > 0)) {
-                throw new ImpossibleSequenceException(t);
+            if (sum < RESCALE_BELOW) {
+                if (!(sum > 0)) {
+                    throw new ImpossibleSequenceException(position0 + i);
+                }
+                for (int j = 0; j < k; j++) {
+                    alpha[off + j] *= RESCALE_BY;
+                }
+                rescales++;
             }
-            double inv = 1.0 / c;
-            for (int j = 0; j < k; j++) {
-                alpha[off + j] *= inv;
+        }
+        return rescales;
+    }
+
+    /**
+     * Backward recursion over a span, last base first. On entry {@code beta} is the backward vector of the base
+     * after the span ({@code nextSymbol} its symbol), or, when {@code nextSymbol < 0}, already the backward
+     * vector of the span's last base. On exit it is the backward vector of the span's first base. With
+     * {@code alpha} given, {@code post} receives the normalised posteriors.
+     */
+    private void backwardSpan(int[] sy, int len, int nextSymbol, double[] beta, double[] alpha, double[] post,
+                              double[] weighted) {
+        if (twoStates) {
+            backwardSpan2(sy, len, nextSymbol, beta, alpha, post);
+        } else {
+            backwardSpanSparse(sy, len, nextSymbol, beta, alpha, post, weighted);
+        }
+    }
+
+    private void backwardSpan2(int[] sy, int len, int nextSymbol, double[] beta, double[] alpha, double[] post) {
+        final double[] e = em;
+        final double t00 = a00;
+        final double t01 = a01;
+        final double t10 = a10;
+        final double t11 = a11;
+        double b0 = beta[0];
+        double b1 = beta[1];
+        int next = nextSymbol;
+        for (int i = len - 1; i >= 0; i--) {
+            if (next >= 0) {
+                int y = next << 1;
+                double w0 = e[y] * b0;
+                double w1 = e[y + 1] * b1;
+                double n0 = t00 * w0 + t01 * w1;
+                double n1 = t10 * w0 + t11 * w1;
+                if (n0 + n1 < RESCALE_BELOW) {
+                    n0 *= RESCALE_BY;
+                    n1 *= RESCALE_BY;
+                }
+                b0 = n0;
+                b1 = n1;
             }
-            if (scale != null) {
-                scale.multiply(c);
+            if (alpha != null) {
+                double g0 = alpha[2 * i] * b0;
+                double g1 = alpha[2 * i + 1] * b1;
+                double inv = 1.0 / (g0 + g1);
+                post[2 * i] = g0 * inv;
+                post[2 * i + 1] = g1 * inv;
             }
+            next = sy[i];
+        }
+        beta[0] = b0;
+        beta[1] = b1;
+    }
+
+    private void backwardSpanSparse(int[] sy, int len, int nextSymbol, double[] beta, double[] alpha,
+                                    double[] post, double[] weighted) {
+        final double[] e = em;
+        final int[] succOffset = p.succOffset();
+        final int[] succState = p.succState();
+        final double[] succProb = p.succProb();
+        int next = nextSymbol;
+        for (int i = len - 1; i >= 0; i--) {
+            if (next >= 0) {
+                int y = next * k;
+                for (int j = 0; j < k; j++) {
+                    weighted[j] = e[y + j] * beta[j];
+                }
+                double sum = 0;
+                for (int s = 0; s < k; s++) {
+                    double v = 0;
+                    for (int q = succOffset[s]; q < succOffset[s + 1]; q++) {
+                        v += succProb[q] * weighted[succState[q]];
+                    }
+                    beta[s] = v;
+                    sum += v;
+                }
+                if (sum < RESCALE_BELOW) {
+                    for (int s = 0; s < k; s++) {
+                        beta[s] *= RESCALE_BY;
+                    }
+                }
+            }
+            if (alpha != null) {
+                int off = i * k;
+                double z = 0;
+                for (int s = 0; s < k; s++) {
+                    double g = alpha[off + s] * beta[s];
+                    post[off + s] = g;
+                    z += g;
+                }
+                double inv = 1.0 / z;
+                for (int s = 0; s < k; s++) {
+                    post[off + s] *= inv;
+                }
+            }
+            next = sy[i];
         }
     }
 }

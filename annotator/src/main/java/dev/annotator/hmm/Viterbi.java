@@ -8,17 +8,18 @@ package dev.annotator.hmm;
  * the final state. Scores are shifted so the best is 0 after every base, which keeps the tolerance meaningful
  * on sequences of any length.
  *
- * <p>Memory: one back-pointer byte per state and position (so at most {@link #MAX_STATES} states), plus two
- * score vectors.
+ * <p>Memory: one back-pointer byte per state and position (so at most {@link #MAX_STATES} states) and one path
+ * byte per position.
  */
 public final class Viterbi {
     public static final double TIE_TOLERANCE = 1e-12;
     public static final int MAX_STATES = 256;
+    private static final int BLOCK = 1 << 14;
 
     private final HmmParameters p;
     private final double[] logStart;
     private final double[] logPredProb;
-    private final double[][] logEmission;
+    private final EmissionSymbols logEmission;
 
     public Viterbi(HmmParameters parameters) {
         if (parameters.stateCount() > MAX_STATES) {
@@ -35,14 +36,7 @@ public final class Viterbi {
         for (int q = 0; q < pp.length; q++) {
             logPredProb[q] = Math.log(pp[q]);
         }
-        double[][] tables = parameters.emissionTables();
-        logEmission = new double[k][];
-        for (int s = 0; s < k; s++) {
-            logEmission[s] = new double[tables[s].length];
-            for (int i = 0; i < tables[s].length; i++) {
-                logEmission[s][i] = Math.log(tables[s][i]);
-            }
-        }
+        logEmission = new EmissionSymbols(parameters, true);
     }
 
     /**
@@ -52,22 +46,25 @@ public final class Viterbi {
         int n = seq.length;
         int k = p.stateCount();
         if (n == 0) {
-            return new ViterbiPath(new int[0], 0.0);
+            return new ViterbiPath(new byte[0], 0.0);
         }
         int[] predOffset = p.predOffset();
         int[] predState = p.predState();
         byte[] back = new byte[n * k];
         double[] prev = new double[k];
         double[] cur = new double[k];
-        double[] e = new double[k];
+        double[] e = logEmission.table;
+        int[] sy = new int[Math.min(n, BLOCK)];
         double shift = 0;
-        EmissionTrack track = new EmissionTrack(p, logEmission, 0.0);
         for (int t = 0; t < n; t++) {
-            track.emit(seq[t], e, 0);
+            if (t % BLOCK == 0) {
+                logEmission.encode(seq, t, Math.min(n, t + BLOCK), sy);
+            }
+            int y = sy[t % BLOCK] * k;
             double best = Double.NEGATIVE_INFINITY;
             if (t == 0) {
                 for (int j = 0; j < k; j++) {
-                    cur[j] = logStart[j] + e[j];
+                    cur[j] = logStart[j] + e[y + j];
                     best = Math.max(best, cur[j]);
                 }
             } else {
@@ -83,7 +80,7 @@ public final class Viterbi {
                         }
                     }
                     back[row + j] = (byte) (arg < 0 ? 0 : arg);
-                    cur[j] = bj + e[j];
+                    cur[j] = bj + e[y + j];
                     best = Math.max(best, cur[j]);
                 }
             }
@@ -105,10 +102,10 @@ public final class Viterbi {
             }
         }
         double logProb = shift + prev[last];
-        int[] path = new int[n];
-        path[n - 1] = last;
+        byte[] path = new byte[n];
+        path[n - 1] = (byte) last;
         for (int t = n - 1; t > 0; t--) {
-            path[t - 1] = back[t * k + path[t]] & 0xFF;
+            path[t - 1] = back[t * k + (path[t] & 0xFF)];
         }
         return new ViterbiPath(path, logProb);
     }

@@ -4,14 +4,15 @@ import java.util.ArrayDeque;
 import java.util.Deque;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
+import java.util.concurrent.ForkJoinPool;
 import java.util.concurrent.Future;
 import java.util.function.Consumer;
 import java.util.function.Function;
 
 /**
  * Applies a function to a stream of items on a fixed number of threads and hands the results on in input order,
- * keeping at most threads + 1 items in flight so memory stays bounded on large inputs.
+ * keeping at most threads + 1 items in flight so memory stays bounded on large inputs. Items run as fork-join
+ * tasks, so an item may fork work of its own onto the same threads.
  */
 final class OrderedParallelMap<I, O> implements AutoCloseable {
     private final Function<I, O> function;
@@ -24,11 +25,8 @@ final class OrderedParallelMap<I, O> implements AutoCloseable {
         this.function = function;
         this.downstream = downstream;
         this.threads = threads;
-        this.pool = threads > 1 ? Executors.newFixedThreadPool(threads, r -> {
-            Thread t = new Thread(r, "annotator-worker");
-            t.setDaemon(true);
-            return t;
-        }) : null;
+        // a fork-join pool, so that work items can split themselves (windows of a long record) on the same threads
+        this.pool = threads > 1 ? new ForkJoinPool(threads) : null;
     }
 
     void submit(I item) {
