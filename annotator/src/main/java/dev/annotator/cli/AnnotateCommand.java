@@ -6,6 +6,7 @@ import dev.annotator.model.HmmModel;
 import dev.annotator.model.ModelLoader;
 import dev.annotator.pipeline.AnnotationOptions;
 import dev.annotator.pipeline.AnnotationPipeline;
+import dev.annotator.pipeline.ProgressReporter;
 import dev.annotator.pipeline.RunSummary;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
@@ -17,6 +18,7 @@ import picocli.CommandLine.Model.CommandSpec;
 
 import java.io.IOException;
 import java.io.PrintWriter;
+import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 
@@ -63,11 +65,32 @@ final class AnnotateCommand implements Callable<Integer> {
             description = "Records decoded in parallel (default: number of processors). Output is identical for any N.")
     Integer threads;
 
-    @Option(names = {"-q", "--quiet"}, description = "Print nothing on standard error except errors.")
+    @Option(names = {"-q", "--quiet"}, description = "Print nothing on standard error except errors and warnings.")
     boolean quiet;
+
+    @Option(names = "--progress", paramLabel = "MODE", defaultValue = "auto",
+            description = "auto (a bar when standard error is a terminal, else nothing), bar, log (a line every "
+                    + "10 s, for logs) or none.")
+    String progress;
 
     @Parameters(paramLabel = "INPUT", description = "FASTA file, plain or gzipped, or - for standard input.")
     String input;
+
+    private ProgressReporter reporter(PrintWriter err) {
+        String mode = progress.toLowerCase(Locale.ROOT);
+        if (!List.of("auto", "bar", "log", "none").contains(mode)) {
+            throw new ParameterException(spec.commandLine(),
+                    "--progress must be auto, bar, log or none, got '" + progress + "'");
+        }
+        if (quiet || mode.equals("none")) {
+            return null;
+        }
+        if (mode.equals("log")) {
+            return new LogProgressLines(err, 10_000);
+        }
+        boolean terminal = TerminalProgressBar.stderrIsTerminal();
+        return mode.equals("bar") || terminal ? new TerminalProgressBar(System.err) : null;
+    }
 
     @Override
     public Integer call() throws IOException {
@@ -78,13 +101,14 @@ final class AnnotateCommand implements Callable<Integer> {
         if (minLength < 0) {
             throw new ParameterException(spec.commandLine(), "--min-length must not be negative, got " + minLength);
         }
+        ProgressReporter reporter = reporter(parent.streams().err());
         HmmModel hmm = ModelLoader.load(model);
         PrintWriter err = parent.streams().err();
         AnnotationPipeline pipeline = new AnnotationPipeline(hmm, new AnnotationOptions(decode, minLength, n));
         RunSummary summary;
         try (OutputTarget out = OutputTarget.open(output, parent.streams().out())) {
             summary = pipeline.run(input, parent.streams().in(), out.writer(), out.name(),
-                    w -> err.println("annotator: warning: " + w), a -> { });
+                    w -> err.println("annotator: warning: " + w), a -> { }, reporter);
             try {
                 out.commit();
             } catch (IOException e) {

@@ -15,6 +15,7 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.concurrent.ForkJoinTask;
 import java.util.concurrent.RecursiveTask;
+import java.util.function.LongConsumer;
 
 /**
  * Decodes FASTA records with one model: the library entry point for embedding. Immutable and thread-safe; every
@@ -82,6 +83,14 @@ public final class Annotator {
      * @throws dev.annotator.hmm.ImpossibleSequenceException if no state path of the model can emit the record
      */
     public RecordAnnotation annotate(SequenceRecord record) {
+        return annotate(record, bases -> { });
+    }
+
+    /**
+     * As {@link #annotate(SequenceRecord)}, telling {@code progress} how many bases each finished piece held (it
+     * may be called from several threads at once).
+     */
+    public RecordAnnotation annotate(SequenceRecord record, LongConsumer progress) {
         byte[] bases = record.bases();
         List<RawSegment> raw;
         double logLik;
@@ -91,12 +100,13 @@ public final class Annotator {
             PathRuns runs = new PathRuns(labels, path.path(), stateToReported, k);
             logLik = forwardBackward.run(bases, runs);
             raw = runs.segments();
+            progress.accept(bases.length);
         } else {
             int n = bases.length;
             int windows = Math.max(1, (int) ((n + (long) window - 1) / window));
             List<WindowTask> tasks = new ArrayList<>(windows);
             for (int w = 0; w < windows; w++) {
-                tasks.add(new WindowTask(bases, w * window, (int) Math.min(n, (long) (w + 1) * window)));
+                tasks.add(new WindowTask(bases, w * window, (int) Math.min(n, (long) (w + 1) * window), progress));
             }
             if (windows > 1 && ForkJoinTask.inForkJoinPool()) {
                 ForkJoinTask.invokeAll(tasks);
@@ -131,12 +141,14 @@ public final class Annotator {
         private final byte[] bases;
         private final int start;
         private final int end;
+        private final LongConsumer progress;
         private double logLikelihood;
 
-        WindowTask(byte[] bases, int start, int end) {
+        WindowTask(byte[] bases, int start, int end, LongConsumer progress) {
             this.bases = bases;
             this.start = start;
             this.end = end;
+            this.progress = progress;
         }
 
         @Override
@@ -145,6 +157,7 @@ public final class Annotator {
             double[] last = end == bases.length ? null : BoundaryVectors.backwardAt(forwardBackward, bases, end - 1);
             PosteriorRuns runs = new PosteriorRuns(labels, start, parameters.stateCount());
             logLikelihood = forwardBackward.runRange(bases, start, end, before, last, runs);
+            progress.accept(end - start);
             return runs;
         }
     }

@@ -52,8 +52,19 @@ public final class InputOpener {
      * @throws IoFailureException    reading the first bytes failed
      */
     public static InputStream open(String pathOrDash, InputStream stdin) {
+        return open(pathOrDash, stdin, null);
+    }
+
+    /**
+     * As {@link #open(String, InputStream)}, counting the bytes taken from the file or stdin (compressed bytes
+     * for gzip) into {@code rawBytes} when it is not null: progress against the file's size.
+     */
+    public static InputStream open(String pathOrDash, InputStream stdin, java.util.concurrent.atomic.LongAdder rawBytes) {
         String name = displayName(pathOrDash);
         InputStream raw = STDIN.equals(pathOrDash) ? new KeepOpenInputStream(stdin) : openFile(pathOrDash);
+        if (rawBytes != null) {
+            raw = new CountingInputStream(raw, rawBytes);
+        }
         BufferedInputStream buffered = new BufferedInputStream(raw, BUFFER_SIZE);
         boolean gzip = false;
         try {
@@ -131,6 +142,34 @@ public final class InputOpener {
         @Override
         public void close() {
             // deliberately left open
+        }
+    }
+
+    /** Adds every byte read to a shared counter (read by a progress display on another thread). */
+    private static final class CountingInputStream extends FilterInputStream {
+        private final java.util.concurrent.atomic.LongAdder count;
+
+        CountingInputStream(InputStream in, java.util.concurrent.atomic.LongAdder count) {
+            super(in);
+            this.count = count;
+        }
+
+        @Override
+        public int read() throws IOException {
+            int b = in.read();
+            if (b >= 0) {
+                count.increment();
+            }
+            return b;
+        }
+
+        @Override
+        public int read(byte[] b, int off, int len) throws IOException {
+            int n = in.read(b, off, len);
+            if (n > 0) {
+                count.add(n);
+            }
+            return n;
         }
     }
 }

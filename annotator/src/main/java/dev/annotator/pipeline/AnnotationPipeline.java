@@ -45,6 +45,14 @@ public final class AnnotationPipeline {
      */
     public RunSummary run(String input, InputStream stdin, Writer gff, String outputName, Consumer<String> warnings,
                           Consumer<RecordAnnotation> progress) {
+        return run(input, stdin, gff, outputName, warnings, progress, null);
+    }
+
+    /**
+     * As above, and shows progress through {@code reporter} (null for none) while the run lasts.
+     */
+    public RunSummary run(String input, InputStream stdin, Writer gff, String outputName, Consumer<String> warnings,
+                          Consumer<RecordAnnotation> progress, ProgressReporter reporter) {
         long started = System.nanoTime();
         String inputName = InputOpener.displayName(input);
         Gff3Writer writer = new Gff3Writer(gff);
@@ -65,25 +73,45 @@ public final class AnnotationPipeline {
             counts[1] += annotation.segments().size();
             progress.accept(annotation);
         };
-        try (FastaRecordReader reader = FastaRecordReader.open(input, stdin, warnings);
+        ProgressTracker tracker = reporter == null ? null : new ProgressTracker(reporter, inputSize(input));
+        try (FastaRecordReader reader = FastaRecordReader.open(input, stdin, warnings,
+                tracker == null ? null : tracker.rawBytesRead);
              OrderedParallelMap<SequenceRecord, RecordAnnotation> map =
-                     new OrderedParallelMap<>(options.threads(), r -> decode(r, inputName), sink)) {
+                     new OrderedParallelMap<>(options.threads(), r -> decode(r, inputName, tracker), sink)) {
             writer.writeHeader();
             SequenceRecord record;
             while ((record = reader.next()) != null) {
+                if (tracker != null) {
+                    tracker.recordRead(record.length());
+                }
                 map.submit(record);
+            }
+            if (tracker != null) {
+                tracker.readingFinished();
             }
             map.finish();
             writer.flush();
         } catch (IOException e) {
             throw new IoFailureException(outputName + ": write failed (" + e.getMessage() + ")", e);
+        } finally {
+            if (tracker != null) {
+                tracker.close();
+            }
         }
         return new RunSummary(counts[0], bases[0], counts[1], (System.nanoTime() - started) / 1e9);
     }
 
-    private RecordAnnotation decode(SequenceRecord record, String inputName) {
+    private static long inputSize(String input) {
         try {
-            return annotator.annotate(record);
+            return InputOpener.STDIN.equals(input) ? -1 : java.nio.file.Files.size(java.nio.file.Path.of(input));
+        } catch (IOException | RuntimeException e) {
+            return -1;
+        }
+    }
+
+    private RecordAnnotation decode(SequenceRecord record, String inputName, ProgressTracker tracker) {
+        try {
+            return tracker == null ? annotator.annotate(record) : annotator.annotate(record, tracker::decoded);
         } catch (ImpossibleSequenceException e) {
             throw new BadInputException(inputName + ": record " + record.name() + ": model " + model.name()
                     + " cannot emit this sequence (probability 0 at base " + (e.position() + 1) + ")");

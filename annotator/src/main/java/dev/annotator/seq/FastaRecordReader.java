@@ -52,8 +52,14 @@ public final class FastaRecordReader implements AutoCloseable {
      * @throws dev.annotator.error.MissingInputException the file does not exist or cannot be read
      */
     public static FastaRecordReader open(String pathOrDash, InputStream stdin, Consumer<String> warnings) {
+        return open(pathOrDash, stdin, warnings, null);
+    }
+
+    /** As {@link #open(String, InputStream, Consumer)}, counting raw input bytes into {@code rawBytes} (may be null). */
+    public static FastaRecordReader open(String pathOrDash, InputStream stdin, Consumer<String> warnings,
+                                         java.util.concurrent.atomic.LongAdder rawBytes) {
         String name = InputOpener.displayName(pathOrDash);
-        InputStream in = InputOpener.open(pathOrDash, stdin);
+        InputStream in = InputOpener.open(pathOrDash, stdin, rawBytes);
         return new FastaRecordReader(name, new FastaLineScanner(in, name), warnings);
     }
 
