@@ -65,6 +65,11 @@ final class AnnotateCommand implements Callable<Integer> {
             description = "Records decoded in parallel (default: number of processors). Output is identical for any N.")
     Integer threads;
 
+    @Option(names = "--id-prefix", paramLabel = "TEXT", defaultValue = "",
+            description = "Put TEXT before every feature ID, so GFF3 files of separately annotated shards of one "
+                    + "genome can be concatenated with unique IDs.")
+    String idPrefix;
+
     @Option(names = {"-q", "--quiet"}, description = "Print nothing on standard error except errors and warnings.")
     boolean quiet;
 
@@ -104,7 +109,7 @@ final class AnnotateCommand implements Callable<Integer> {
         ProgressReporter reporter = reporter(parent.streams().err());
         HmmModel hmm = ModelLoader.load(model);
         PrintWriter err = parent.streams().err();
-        AnnotationPipeline pipeline = new AnnotationPipeline(hmm, new AnnotationOptions(decode, minLength, n));
+        AnnotationPipeline pipeline = new AnnotationPipeline(hmm, new AnnotationOptions(decode, minLength, n, idPrefix));
         RunSummary summary;
         try (OutputTarget out = OutputTarget.open(output, parent.streams().out())) {
             summary = pipeline.run(input, parent.streams().in(), out.writer(), out.name(),

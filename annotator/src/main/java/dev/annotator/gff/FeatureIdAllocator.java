@@ -13,12 +13,25 @@ import java.util.Map;
  */
 public final class FeatureIdAllocator {
     private final Map<String, Long> counters = new HashMap<>();
+    private final String prefix;
+
+    public FeatureIdAllocator() {
+        this("");
+    }
+
+    /**
+     * @param prefix put before every ID, so that files annotated separately (shards of one genome) can be
+     *               concatenated with their IDs still unique
+     */
+    public FeatureIdAllocator(String prefix) {
+        this.prefix = prefix;
+    }
 
     public String next(String label) {
         if (label == null || label.isEmpty()) {
             throw new IllegalArgumentException("label must not be empty");
         }
         long n = counters.merge(label, 1L, Long::sum);
-        return label + "_" + n;
+        return prefix + label + "_" + n;
     }
 }

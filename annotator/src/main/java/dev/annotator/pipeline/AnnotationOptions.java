@@ -8,9 +8,17 @@ import dev.annotator.decode.DecodeMethod;
  * @param method    posterior (default) or Viterbi decoding
  * @param minLength segments shorter than this are dropped
  * @param threads   records decoded at once; output order and bytes do not depend on it
+ * @param idPrefix  put before every feature ID (for shards of one genome annotated separately); may be empty
  */
-public record AnnotationOptions(DecodeMethod method, int minLength, int threads) {
+public record AnnotationOptions(DecodeMethod method, int minLength, int threads, String idPrefix) {
+    public AnnotationOptions(DecodeMethod method, int minLength, int threads) {
+        this(method, minLength, threads, "");
+    }
+
     public AnnotationOptions {
+        if (idPrefix == null) {
+            throw new IllegalArgumentException("idPrefix must not be null");
+        }
         if (threads < 1) {
             throw new IllegalArgumentException("threads must be at least 1");
         }

@@ -56,7 +56,7 @@ public final class AnnotationPipeline {
         long started = System.nanoTime();
         String inputName = InputOpener.displayName(input);
         Gff3Writer writer = new Gff3Writer(gff);
-        FeatureIdAllocator ids = new FeatureIdAllocator();
+        FeatureIdAllocator ids = new FeatureIdAllocator(options.idPrefix());
         long[] bases = {0};
         int[] counts = {0, 0};
         Consumer<RecordAnnotation> sink = annotation -> {
