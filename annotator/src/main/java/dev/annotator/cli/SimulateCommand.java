@@ -12,6 +12,8 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.ParentCommand;
 
 import java.io.IOException;
+import java.util.Arrays;
+import java.util.List;
 import java.util.concurrent.Callable;
 
 @Command(name = "simulate", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
@@ -53,6 +55,9 @@ final class SimulateCommand implements Callable<Integer> {
     @Option(names = "--truth", paramLabel = "TRUTH.gff3", description = "Also write the true segments as GFF3.")
     String truth;
 
+    @Option(names = "--force", description = "Replace output files that exist (default: refuse).")
+    boolean force;
+
     @Override
     public Integer call() {
         if (length < 1) {
@@ -64,9 +69,10 @@ final class SimulateCommand implements Callable<Integer> {
         if (truth != null && OutputTarget.isStdout(output) && OutputTarget.isStdout(truth)) {
             throw new ParameterException(spec.commandLine(), "-o and --truth cannot both be standard output");
         }
+        OutputTarget.refuseBeforeRun(List.of(model), Arrays.asList(output, truth), force);
         HmmModel hmm = ModelLoader.load(model);
-        try (OutputTarget fasta = OutputTarget.open(output, parent.streams().out());
-             OutputTarget truthFile = truth == null ? null : OutputTarget.open(truth, parent.streams().out())) {
+        try (OutputTarget fasta = OutputTarget.open(output, parent.streams().out(), force);
+             OutputTarget truthFile = truth == null ? null : OutputTarget.open(truth, parent.streams().out(), force)) {
             new SimulationRun(hmm).write("sim", length, records, seed, fasta.stream(),
                     truthFile == null ? null : truthFile.writer());
             if (truthFile != null) {
