@@ -57,13 +57,22 @@ public final class InputOpener {
         BufferedInputStream buffered = new BufferedInputStream(raw, BUFFER_SIZE);
         boolean gzip = false;
         try {
-            gzip = startsWithGzipMagic(buffered);
+            byte[] head = peek(buffered, 6);
+            gzip = head.length >= 2 && (head[0] & 0xFF) == GZIP_MAGIC_1 && (head[1] & 0xFF) == GZIP_MAGIC_2;
+            String other = gzip ? null : OtherCompression.of(head);
+            if (other != null) {
+                throw new BadInputException(name + ": " + other + "-compressed data; only plain or gzip-compressed "
+                        + "input is read (decompress it first)");
+            }
             // GZIPInputStream reads the member header in its constructor, so a damaged header fails here
             InputStream data = gzip ? new GZIPInputStream(buffered, BUFFER_SIZE) : buffered;
             return new ReadFailureTranslator(data, name, gzip);
         } catch (IOException e) {
             closeQuietly(buffered);
             throw translate(e, name, gzip);
+        } catch (BadInputException e) {
+            closeQuietly(buffered);
+            throw e;
         }
     }
 
@@ -95,12 +104,12 @@ public final class InputOpener {
         }
     }
 
-    private static boolean startsWithGzipMagic(BufferedInputStream in) throws IOException {
-        in.mark(2);
-        int first = in.read();
-        int second = first < 0 ? -1 : in.read();
+    /** Up to {@code n} first bytes, fewer if the input is shorter; the stream is left where it was. */
+    private static byte[] peek(BufferedInputStream in, int n) throws IOException {
+        in.mark(n);
+        byte[] head = in.readNBytes(n);
         in.reset();
-        return first == GZIP_MAGIC_1 && second == GZIP_MAGIC_2;
+        return head;
     }
 
     /**

@@ -65,9 +65,10 @@ public final class AnnotationPipeline {
             counts[1] += annotation.segments().size();
             progress.accept(annotation);
         };
-        try (FastaRecordReader reader = FastaRecordReader.open(input, stdin, warnings);
-             OrderedParallelMap<SequenceRecord, RecordAnnotation> map =
-                     new OrderedParallelMap<>(options.threads(), r -> decode(r, inputName), sink)) {
+        MemoryBudget budget = MemoryBudget.ofThisJvm(model.stateCount(), options.method());
+        try (FastaRecordReader reader = FastaRecordReader.open(input, stdin, warnings, budget.recordLimit());
+             OrderedParallelMap<SequenceRecord, RecordAnnotation> map = new OrderedParallelMap<>(options.threads(),
+                     r -> decode(r, inputName), sink, SequenceRecord::length, budget.basesInFlight())) {
             writer.writeHeader();
             SequenceRecord record;
             while ((record = reader.next()) != null) {
