@@ -73,14 +73,18 @@ final class SimulateCommand implements Callable<Integer> {
         HmmModel hmm = ModelLoader.load(model);
         try (OutputTarget fasta = OutputTarget.open(output, parent.streams().out(), force);
              OutputTarget truthFile = truth == null ? null : OutputTarget.open(truth, parent.streams().out(), force)) {
-            new SimulationRun(hmm).write("sim", length, records, seed, fasta.stream(),
-                    truthFile == null ? null : truthFile.writer());
-            if (truthFile != null) {
-                truthFile.commit();
+            try {
+                new SimulationRun(hmm).write("sim", length, records, seed, fasta.stream(),
+                        truthFile == null ? null : truthFile.writer());
+                if (truthFile != null) {
+                    truthFile.commit();
+                }
+                fasta.commit();
+            } catch (IOException e) {
+                // both outputs are written as records are sampled, so a failed write may be either
+                String name = truthFile == null ? fasta.name() : fasta.name() + " or " + truthFile.name();
+                throw new IoFailureException(name + ": write failed (" + e.getMessage() + ")", e);
             }
-            fasta.commit();
-        } catch (IOException e) {
-            throw new IoFailureException(output + ": write failed (" + e.getMessage() + ")", e);
         }
         return 0;
     }
