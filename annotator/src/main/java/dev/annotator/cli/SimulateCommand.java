@@ -63,6 +63,13 @@ final class SimulateCommand implements Callable<Integer> {
         if (length < 1) {
             throw new ParameterException(spec.commandLine(), "--length must be at least 1, got " + length);
         }
+        // a record is sampled whole, one byte per base, before it is written: refuse what cannot fit at once
+        long usable = Runtime.getRuntime().maxMemory() / 100 * 80;
+        if (length > usable) {
+            throw new ParameterException(spec.commandLine(), "--length " + length + " is more than one record this "
+                    + "run can hold in memory (Java heap limit " + (Runtime.getRuntime().maxMemory() >> 20)
+                    + " MiB; give java more with -Xmx)");
+        }
         if (records < 1) {
             throw new ParameterException(spec.commandLine(), "--records must be at least 1, got " + records);
         }

@@ -123,6 +123,20 @@ class ResourceLimitsTest {
         CliAssertions.assertOneLineError(r, 65, model + ": larger than 64 MiB, the most a model file may be");
     }
 
+    /** simulate samples a record whole: a length beyond the heap is refused before anything is sampled. */
+    @Test
+    void simulateLengthBeyondTheHeapIsAUsageError() throws IOException, InterruptedException {
+        Path fa = dir.resolve("huge.fa");
+        Process p = ChildJvm.start(List.of("-Xmx64m"), "simulate", "-m", "cpg-island", "--length", "100000000", "-o",
+                fa.toString());
+        String err = new String(p.getErrorStream().readAllBytes(), StandardCharsets.UTF_8);
+        assertThat(p.waitFor(60, TimeUnit.SECONDS)).isTrue();
+        assertThat(p.exitValue()).as(err).isEqualTo(2);
+        assertThat(err).hasLineCount(1).startsWith("annotator: error: --length 100000000 is more than one record "
+                + "this run can hold in memory (Java heap limit ");
+        assertThat(fa).doesNotExist();
+    }
+
     /** Should the sizing ever fall short, the heap running out is still one line and no partial output. */
     @Test
     void outOfMemoryIsOneLineAndLeavesNoOutput() throws IOException {
