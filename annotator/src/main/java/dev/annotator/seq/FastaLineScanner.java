@@ -288,8 +288,9 @@ final class FastaLineScanner extends FilterInputStream {
         for (int i = 0; i < headerLength; i++) {
             byte b = header[i];
             ascii &= b >= 0;
-            // tab separates words; every other control byte is a sign of binary data, and would end up in messages
-            if ((b >= 0 && b < ' ' && b != '\t') || b == 0x7F) {
+            // tab separates words; any other C0 control byte is a sign of binary data (or a terminal escape that
+            // would end up in messages). DEL is left alone: it is inert, and GFF3 escapes it in a seqid
+            if (b >= 0 && b < ' ' && b != '\t') {
                 throw new BadInputException(fileName + ":" + headerLine + ": header has control byte "
                         + String.format("0x%02x", b));
             }
