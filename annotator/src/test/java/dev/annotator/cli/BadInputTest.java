@@ -68,6 +68,18 @@ class BadInputTest {
     }
 
     @Test
+    void debugAddsTheStackTraceAndOnlyDebugDoes() {
+        Path input = CliRun.testData("bad", "digit-in-sequence.fa");
+        String error = "annotator: error: " + input + ":3: record seqA: invalid character '9' (0x39) in sequence";
+        CliRun.Result plain = CliRun.run("annotate", "-m", "cpg-island", input.toString());
+        assertOneLineError(plain, DATA, error);
+        CliRun.Result debug = CliRun.run("annotate", "--debug", "-m", "cpg-island", input.toString());
+        assertThat(debug.status()).isEqualTo(DATA);
+        assertThat(debug.errLines().get(0)).isEqualTo(error);
+        assertThat(debug.stderr()).contains("BadInputException").contains("\tat dev.annotator.");
+    }
+
+    @Test
     void missingInputFile() throws IOException {
         Path input = tmp.resolve("no-such-input.fa");
         Path outDir = outDir();
