@@ -18,6 +18,7 @@ import picocli.CommandLine.Model.CommandSpec;
 
 import java.io.IOException;
 import java.io.PrintWriter;
+import java.util.Collections;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
@@ -52,6 +53,9 @@ final class AnnotateCommand implements Callable<Integer> {
     @Option(names = {"-o", "--output"}, paramLabel = "OUT.gff3",
             description = "GFF3 output file (default: standard output). Written only if the run succeeds.")
     String output;
+
+    @Option(names = "--force", description = "Replace the output file if it exists (default: refuse).")
+    boolean force;
 
     @Option(names = "--decode", paramLabel = "METHOD", defaultValue = "posterior", converter = DecodeMethodConverter.class,
             description = "posterior (default) or viterbi.")
@@ -106,12 +110,13 @@ final class AnnotateCommand implements Callable<Integer> {
         if (minLength < 0) {
             throw new ParameterException(spec.commandLine(), "--min-length must not be negative, got " + minLength);
         }
+        OutputTarget.refuseBeforeRun(List.of(input, model), Collections.singletonList(output), force);
         ProgressReporter reporter = reporter(parent.streams().err());
         HmmModel hmm = ModelLoader.load(model);
         PrintWriter err = parent.streams().err();
         AnnotationPipeline pipeline = new AnnotationPipeline(hmm, new AnnotationOptions(decode, minLength, n, idPrefix));
         RunSummary summary;
-        try (OutputTarget out = OutputTarget.open(output, parent.streams().out())) {
+        try (OutputTarget out = OutputTarget.open(output, parent.streams().out(), force)) {
             summary = pipeline.run(input, parent.streams().in(), out.writer(), out.name(),
                     w -> err.println("annotator: warning: " + w), a -> { }, reporter);
             try {

@@ -21,7 +21,8 @@ import picocli.CommandLine.ScopeType;
                 "",
                 Caution.TEXT,
                 "",
-                "Exit status: 0 success, 2 bad command line, 65 bad input data, 66 missing input, "
+                "Exit status: 0 success, 2 bad command line or refused output (exists without --force, or "
+                        + "is an input), 65 bad input data, 66 missing input, "
                         + "74 read/write failure, 70 internal error."})
 public final class AnnotatorCommand implements java.util.concurrent.Callable<Integer> {
 

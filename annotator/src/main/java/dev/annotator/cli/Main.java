@@ -56,7 +56,19 @@ public final class Main {
             }
             return ExitCodes.SOFTWARE;
         });
-        int code = cl.execute(args);
+        int code;
+        try {
+            code = cl.execute(args);
+        } catch (OutOfMemoryError e) {
+            // inputs are sized to the heap before they are read (MemoryBudget), so this is a gap in that sizing;
+            // the stack is unwound by now and its memory free, so one line can still be printed
+            err.println("annotator: error: out of memory (Java heap limit " + (Runtime.getRuntime().maxMemory() >> 20)
+                    + " MiB): give java more with -Xmx, or use fewer --threads; please report it, with --debug output");
+            if (debug) {
+                e.printStackTrace(err);
+            }
+            code = ExitCodes.SOFTWARE;
+        }
         out.flush();
         // help, version and the listing commands print through this PrintWriter, which also swallows errors
         if (code == ExitCodes.OK && out.checkError()) {

@@ -12,6 +12,8 @@ import picocli.CommandLine.Spec;
 import picocli.CommandLine.ParentCommand;
 
 import java.io.IOException;
+import java.util.Arrays;
+import java.util.List;
 import java.util.concurrent.Callable;
 
 @Command(name = "simulate", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
@@ -53,10 +55,20 @@ final class SimulateCommand implements Callable<Integer> {
     @Option(names = "--truth", paramLabel = "TRUTH.gff3", description = "Also write the true segments as GFF3.")
     String truth;
 
+    @Option(names = "--force", description = "Replace output files that exist (default: refuse).")
+    boolean force;
+
     @Override
     public Integer call() {
         if (length < 1) {
             throw new ParameterException(spec.commandLine(), "--length must be at least 1, got " + length);
+        }
+        // a record is sampled whole, one byte per base, before it is written: refuse what cannot fit at once
+        long usable = Runtime.getRuntime().maxMemory() / 100 * 80;
+        if (length > usable) {
+            throw new ParameterException(spec.commandLine(), "--length " + length + " is more than one record this "
+                    + "run can hold in memory (Java heap limit " + (Runtime.getRuntime().maxMemory() >> 20)
+                    + " MiB; give java more with -Xmx)");
         }
         if (records < 1) {
             throw new ParameterException(spec.commandLine(), "--records must be at least 1, got " + records);
@@ -64,17 +76,22 @@ final class SimulateCommand implements Callable<Integer> {
         if (truth != null && OutputTarget.isStdout(output) && OutputTarget.isStdout(truth)) {
             throw new ParameterException(spec.commandLine(), "-o and --truth cannot both be standard output");
         }
+        OutputTarget.refuseBeforeRun(List.of(model), Arrays.asList(output, truth), force);
         HmmModel hmm = ModelLoader.load(model);
-        try (OutputTarget fasta = OutputTarget.open(output, parent.streams().out());
-             OutputTarget truthFile = truth == null ? null : OutputTarget.open(truth, parent.streams().out())) {
-            new SimulationRun(hmm).write("sim", length, records, seed, fasta.stream(),
-                    truthFile == null ? null : truthFile.writer());
-            if (truthFile != null) {
-                truthFile.commit();
+        try (OutputTarget fasta = OutputTarget.open(output, parent.streams().out(), force);
+             OutputTarget truthFile = truth == null ? null : OutputTarget.open(truth, parent.streams().out(), force)) {
+            try {
+                new SimulationRun(hmm).write("sim", length, records, seed, fasta.stream(),
+                        truthFile == null ? null : truthFile.writer());
+                if (truthFile != null) {
+                    truthFile.commit();
+                }
+                fasta.commit();
+            } catch (IOException e) {
+                // both outputs are written as records are sampled, so a failed write may be either
+                String name = truthFile == null ? fasta.name() : fasta.name() + " or " + truthFile.name();
+                throw new IoFailureException(name + ": write failed (" + e.getMessage() + ")", e);
             }
-            fasta.commit();
-        } catch (IOException e) {
-            throw new IoFailureException(output + ": write failed (" + e.getMessage() + ")", e);
         }
         return 0;
     }

@@ -3,7 +3,7 @@ package dev.annotator.error;
 /** Exit statuses of the command line; the numbers follow BSD sysexits.h so scripts can branch on them. */
 public final class ExitCodes {
     public static final int OK = 0;
-    /** Bad command line (unknown option, missing argument, invalid value). */
+    /** Bad command line (unknown option, missing argument, invalid value), or an output it may not replace. */
     public static final int USAGE = 2;
     /** Input data is malformed: FASTA, model file, label file. (EX_DATAERR) */
     public static final int DATA = 65;

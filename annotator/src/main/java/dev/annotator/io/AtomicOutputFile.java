@@ -1,12 +1,15 @@
 package dev.annotator.io;
 
 import dev.annotator.error.IoFailureException;
+import dev.annotator.error.UsageException;
 
 import java.io.BufferedOutputStream;
 import java.io.IOException;
 import java.io.OutputStream;
 import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.FileAlreadyExistsException;
 import java.nio.file.Files;
+import java.nio.file.LinkOption;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.util.UUID;
@@ -20,6 +23,9 @@ import java.util.UUID;
  * <p>A symbolic link is followed: the file it points to is replaced, the link stays. A target that exists and is
  * not a regular file (a device such as /dev/null or /dev/stdout, a named pipe) cannot be replaced by renaming, so
  * it is written directly.
+ *
+ * <p>{@link #create} replaces an existing file; {@link #createNew} refuses one, both when it is created and when
+ * it is committed (a file that appeared in between is not replaced either).
  */
 public final class AtomicOutputFile implements AutoCloseable {
     private final Path target;
@@ -28,6 +34,7 @@ public final class AtomicOutputFile implements AutoCloseable {
     private final OutputStream stream;
     // removes the temporary file if the process is interrupted (SIGINT, SIGTERM) before commit or close
     private final Thread cleanupOnExit;
+    private final boolean replaceExisting;
     private boolean committed;
 
     /**
@@ -35,8 +42,10 @@ public final class AtomicOutputFile implements AutoCloseable {
      * @param destination where the file lands (a link's target resolved)
      * @param temporary   null when writing directly to a device or pipe
      */
-    private AtomicOutputFile(Path target, Path destination, Path temporary, OutputStream stream) {
+    private AtomicOutputFile(Path target, Path destination, Path temporary, OutputStream stream,
+                             boolean replaceExisting) {
         this.target = target;
+        this.replaceExisting = replaceExisting;
         this.destination = destination;
         this.temporary = temporary;
         this.stream = stream;
@@ -49,12 +58,29 @@ public final class AtomicOutputFile implements AutoCloseable {
     }
 
     /**
+     * An output that replaces whatever regular file is at {@code target} when committed.
+     *
      * @throws IoFailureException when the directory is missing or not writable
      */
     public static AtomicOutputFile create(Path target) {
+        return create(target, true);
+    }
+
+    /**
+     * An output that must not replace an existing regular file (devices and pipes are still written).
+     *
+     * @throws UsageException     a regular file exists at {@code target} (or where its link points)
+     * @throws IoFailureException when the directory is missing or not writable
+     */
+    public static AtomicOutputFile createNew(Path target) {
+        return create(target, false);
+    }
+
+    private static AtomicOutputFile create(Path target, boolean replaceExisting) {
         if (Files.exists(target) && !Files.isRegularFile(target) && !Files.isDirectory(target)) {
             try {
-                return new AtomicOutputFile(target, target, null, new BufferedOutputStream(Files.newOutputStream(target), 1 << 16));
+                return new AtomicOutputFile(target, target, null, new BufferedOutputStream(Files.newOutputStream(target), 1 << 16),
+                        true);
             } catch (IOException e) {
                 throw new IoFailureException(target + ": cannot write (" + reason(e) + ")", e);
             }
@@ -79,12 +105,16 @@ public final class AtomicOutputFile implements AutoCloseable {
         if (Files.isDirectory(absolute)) {
             throw new IoFailureException(target + ": is a directory");
         }
+        if (!replaceExisting && Files.exists(absolute, LinkOption.NOFOLLOW_LINKS)) {
+            throw new UsageException(target + ": already exists");
+        }
         try {
             // created like any new file (mode from the umask), unlike createTempFile's owner-only mode, so the
             // renamed output has the permissions a user expects
             Path tmp = dir.resolve("." + absolute.getFileName() + "." + UUID.randomUUID() + ".partial");
             Files.createFile(tmp);
-            return new AtomicOutputFile(target, absolute, tmp, new BufferedOutputStream(Files.newOutputStream(tmp), 1 << 16));
+            return new AtomicOutputFile(target, absolute, tmp, new BufferedOutputStream(Files.newOutputStream(tmp), 1 << 16),
+                    replaceExisting);
         } catch (IOException e) {
             throw new IoFailureException(target + ": cannot create output in " + dir + " (" + reason(e) + ")", e);
         }
@@ -107,13 +137,20 @@ public final class AtomicOutputFile implements AutoCloseable {
                 committed = true;
                 return;
             }
-            try {
-                Files.move(temporary, destination, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
-            } catch (AtomicMoveNotSupportedException e) {
-                Files.move(temporary, destination, StandardCopyOption.REPLACE_EXISTING);
+            if (replaceExisting) {
+                try {
+                    Files.move(temporary, destination, StandardCopyOption.ATOMIC_MOVE, StandardCopyOption.REPLACE_EXISTING);
+                } catch (AtomicMoveNotSupportedException e) {
+                    Files.move(temporary, destination, StandardCopyOption.REPLACE_EXISTING);
+                }
+            } else {
+                // an atomic move may silently replace (rename(2) does); a plain move checks for the target first
+                Files.move(temporary, destination);
             }
             committed = true;
             forgetCleanup();
+        } catch (FileAlreadyExistsException e) {
+            throw new UsageException(target + ": already exists (it appeared while this run was writing); not replaced");
         } catch (IOException e) {
             throw new IoFailureException(target + ": write failed (" + reason(e) + ")", e);
         }

@@ -14,7 +14,6 @@ import java.nio.file.Files;
 import java.nio.file.InvalidPathException;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
-import java.util.zip.GZIPInputStream;
 import java.util.zip.ZipException;
 
 /**
@@ -23,7 +22,7 @@ import java.util.zip.ZipException;
  * "x.fa.gz" that was already unpacked is read as it is.
  *
  * <p>The stream returned never throws {@link IOException} for data problems: a truncated or corrupt gzip
- * member surfaces as {@link BadInputException}, any other read failure as {@link IoFailureException}, both
+ * member, or data after the last member, surfaces as {@link BadInputException}, any other read failure as {@link IoFailureException}, both
  * with a one-line message naming the input.
  */
 public final class InputOpener {
@@ -68,13 +67,22 @@ public final class InputOpener {
         BufferedInputStream buffered = new BufferedInputStream(raw, BUFFER_SIZE);
         boolean gzip = false;
         try {
-            gzip = startsWithGzipMagic(buffered);
-            // GZIPInputStream reads the member header in its constructor, so a damaged header fails here
-            InputStream data = gzip ? new GZIPInputStream(buffered, BUFFER_SIZE) : buffered;
+            byte[] head = peek(buffered, 6);
+            gzip = head.length >= 2 && (head[0] & 0xFF) == GZIP_MAGIC_1 && (head[1] & 0xFF) == GZIP_MAGIC_2;
+            String other = gzip ? null : OtherCompression.of(head);
+            if (other != null) {
+                throw new BadInputException(name + ": " + other + "-compressed data; only plain or gzip-compressed "
+                        + "input is read (decompress it first)");
+            }
+            // the first member header is read here, so a damaged one fails at once
+            InputStream data = gzip ? new GzipMembers(buffered, BUFFER_SIZE) : buffered;
             return new ReadFailureTranslator(data, name, gzip);
         } catch (IOException e) {
             closeQuietly(buffered);
             throw translate(e, name, gzip);
+        } catch (BadInputException e) {
+            closeQuietly(buffered);
+            throw e;
         }
     }
 
@@ -106,12 +114,12 @@ public final class InputOpener {
         }
     }
 
-    private static boolean startsWithGzipMagic(BufferedInputStream in) throws IOException {
-        in.mark(2);
-        int first = in.read();
-        int second = first < 0 ? -1 : in.read();
+    /** Up to {@code n} first bytes, fewer if the input is shorter; the stream is left where it was. */
+    private static byte[] peek(BufferedInputStream in, int n) throws IOException {
+        in.mark(n);
+        byte[] head = in.readNBytes(n);
         in.reset();
-        return first == GZIP_MAGIC_1 && second == GZIP_MAGIC_2;
+        return head;
     }
 
     /**
@@ -119,6 +127,10 @@ public final class InputOpener {
      * CRC or size mismatch in the trailer); they mean the data is bad, not that the device failed.
      */
     static RuntimeException translate(IOException e, String name, boolean gzip) {
+        if (gzip && e instanceof GzipMembers.TrailingData) {
+            return new BadInputException(name + ": data after the end of the gzip data (a damaged further member, "
+                    + "or bytes appended to the file)", e);
+        }
         if (gzip && (e instanceof EOFException || e instanceof ZipException)) {
             return new BadInputException(name + ": truncated or corrupt gzip data", e);
         }

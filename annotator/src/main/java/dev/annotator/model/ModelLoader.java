@@ -48,6 +48,10 @@ public final class ModelLoader {
             throw new MissingInputException(displayName + ": is a directory, not a model file");
         }
         try (InputStream in = Files.newInputStream(path)) {
+            // a file's size is known: refuse at once rather than after parsing 64 MiB (a pipe is counted as read)
+            if (Files.isRegularFile(path) && Files.size(path) > ModelJson.MAX_FILE_BYTES) {
+                throw ModelJson.tooLarge(displayName);
+            }
             return ModelJson.read(in, displayName);
         } catch (NoSuchFileException e) {
             throw new MissingInputException(displayName + ": no such file");

@@ -74,10 +74,11 @@ public final class AnnotationPipeline {
             progress.accept(annotation);
         };
         ProgressTracker tracker = reporter == null ? null : new ProgressTracker(reporter, inputSize(input));
-        try (FastaRecordReader reader = FastaRecordReader.open(input, stdin, warnings,
+        MemoryBudget budget = MemoryBudget.ofThisJvm(model.stateCount(), options.method());
+        try (FastaRecordReader reader = FastaRecordReader.open(input, stdin, warnings, budget.recordLimit(),
                 tracker == null ? null : tracker.rawBytesRead);
-             OrderedParallelMap<SequenceRecord, RecordAnnotation> map =
-                     new OrderedParallelMap<>(options.threads(), r -> decode(r, inputName, tracker), sink)) {
+             OrderedParallelMap<SequenceRecord, RecordAnnotation> map = new OrderedParallelMap<>(options.threads(),
+                     r -> decode(r, inputName, tracker), sink, SequenceRecord::length, budget.basesInFlight())) {
             writer.writeHeader();
             SequenceRecord record;
             while ((record = reader.next()) != null) {

@@ -3,28 +3,40 @@ package dev.annotator.pipeline;
 import java.util.ArrayDeque;
 import java.util.Deque;
 import java.util.concurrent.ExecutionException;
-import java.util.concurrent.ExecutorService;
 import java.util.concurrent.ForkJoinPool;
 import java.util.concurrent.Future;
 import java.util.function.Consumer;
 import java.util.function.Function;
+import java.util.function.ToLongFunction;
 
 /**
  * Applies a function to a stream of items on a fixed number of threads and hands the results on in input order,
- * keeping at most threads + 1 items in flight so memory stays bounded on large inputs. Items run as fork-join
- * tasks, so an item may fork work of its own onto the same threads.
+ * keeping at most threads + 1 items in flight so memory stays bounded on large inputs. Items also have a weight
+ * (a record's length): the weights in flight stay within a budget, except that one item is always let through.
+ * Items run as fork-join tasks, so an item may fork work of its own onto the same threads.
  */
 final class OrderedParallelMap<I, O> implements AutoCloseable {
     private final Function<I, O> function;
     private final Consumer<O> downstream;
     private final int threads;
-    private final ExecutorService pool;
+    private final ToLongFunction<I> weight;
+    private final long maxWeightInFlight;
+    private final ForkJoinPool pool;
     private final Deque<Future<O>> inFlight = new ArrayDeque<>();
+    private final Deque<Long> weights = new ArrayDeque<>();
+    private long weightInFlight;
 
     OrderedParallelMap(int threads, Function<I, O> function, Consumer<O> downstream) {
+        this(threads, function, downstream, item -> 0, Long.MAX_VALUE);
+    }
+
+    OrderedParallelMap(int threads, Function<I, O> function, Consumer<O> downstream, ToLongFunction<I> weight,
+                       long maxWeightInFlight) {
         this.function = function;
         this.downstream = downstream;
         this.threads = threads;
+        this.weight = weight;
+        this.maxWeightInFlight = maxWeightInFlight;
         // a fork-join pool, so that work items can split themselves (windows of a long record) on the same threads
         this.pool = threads > 1 ? new ForkJoinPool(threads) : null;
     }
@@ -34,17 +46,29 @@ final class OrderedParallelMap<I, O> implements AutoCloseable {
             downstream.accept(function.apply(item));
             return;
         }
+        long w = weight.applyAsLong(item);
+        while (!inFlight.isEmpty() && weightInFlight > maxWeightInFlight - w) {
+            passOnOldest();
+        }
         inFlight.add(pool.submit(() -> function.apply(item)));
+        weights.add(w);
+        weightInFlight += w;
         while (inFlight.size() > threads) {
-            downstream.accept(await(inFlight.poll()));
+            passOnOldest();
         }
     }
 
     /** Waits for everything submitted and passes it on. */
     void finish() {
         while (!inFlight.isEmpty()) {
-            downstream.accept(await(inFlight.poll()));
+            passOnOldest();
         }
+    }
+
+    private void passOnOldest() {
+        O result = await(inFlight.poll());
+        weightInFlight -= weights.poll();
+        downstream.accept(result);
     }
 
     private O await(Future<O> future) {

@@ -5,6 +5,9 @@ import dev.annotator.error.BadInputException;
 import java.io.FilterInputStream;
 import java.io.IOException;
 import java.io.InputStream;
+import java.nio.ByteBuffer;
+import java.nio.charset.CharacterCodingException;
+import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.util.ArrayDeque;
 import java.util.Arrays;
@@ -14,7 +17,10 @@ import java.util.Map;
 /**
  * Watches FASTA bytes on their way to the parser and stops at the first thing the parser would silently
  * accept or mangle: data before the first header, a header without a name, a non-IUPAC byte in a sequence,
- * a repeated record name, a record too long to hold. It also keeps line numbers for messages and a queue
+ * a repeated record name, a record too long to hold, a line the parser would have to buffer whole that is too
+ * long (a header or comment line over {@link #MAX_HEADER_LENGTH} bytes, a line of blanks over the record limit),
+ * binary data where the first header should be, control bytes or invalid UTF-8 in a header. It also keeps line
+ * numbers for messages and a queue
  * of the records it has seen to the end, so the reader can pair each parsed record with its header line
  * and notice the empty records the parser drops without a word.
  *
@@ -26,8 +32,12 @@ import java.util.Map;
  * per byte over runs of bases; everything else (line ends, blanks, headers) is off that path.
  */
 final class FastaLineScanner extends FilterInputStream {
-    /** The longest record a Java array (and BioJava's StringBuilder) can hold. */
-    static final long MAX_RECORD_LENGTH = Integer.MAX_VALUE - 8;
+    /**
+     * The longest header or comment line, in bytes. The parser buffers a whole line before it looks at it, so an
+     * unbounded line is unbounded memory; a header is a name and a description, and a megabyte of it is a
+     * mistake (a sequence joined onto its header, a binary file), not a description.
+     */
+    static final int MAX_HEADER_LENGTH = 1 << 20;
 
     private static final byte BASE = 0;
     private static final byte BLANK = 1;
@@ -43,6 +53,7 @@ final class FastaLineScanner extends FilterInputStream {
 
     private final String fileName;
     private final long maxRecordLength;
+    private final String limitReason;
     private final ArrayDeque<ScannedRecord> finished = new ArrayDeque<>();
     private final Map<String, Long> firstSeenAt = new HashMap<>();
     private final byte[] single = new byte[1];
@@ -52,6 +63,8 @@ final class FastaLineScanner extends FilterInputStream {
     /** The previous line ended with CR, so an LF now completes that line end rather than ending a line. */
     private boolean afterCr;
     private boolean lineHasBase;
+    /** Bytes of the current line so far, line end excluded: what the parser's line buffer holds. */
+    private long lineLength;
     private boolean blankAfterBase;
     private boolean ended;
     private int headersSeen;
@@ -70,14 +83,15 @@ final class FastaLineScanner extends FilterInputStream {
     private boolean currentInteriorBlanks;
 
     FastaLineScanner(InputStream in, String fileName) {
-        this(in, fileName, MAX_RECORD_LENGTH);
+        this(in, fileName, RecordLengthLimit.ARRAY);
     }
 
-    /** With a lower length limit so that the limit can be tested without gigabytes of data. */
-    FastaLineScanner(InputStream in, String fileName, long maxRecordLength) {
+    /** With a lower record length limit: the memory a run can spare, or a small one for tests. */
+    FastaLineScanner(InputStream in, String fileName, RecordLengthLimit limit) {
         super(in);
         this.fileName = fileName;
-        this.maxRecordLength = maxRecordLength;
+        this.maxRecordLength = limit.bases();
+        this.limitReason = limit.reason();
     }
 
     /** The oldest record scanned to its end and not yet taken, or null. */
@@ -150,7 +164,11 @@ final class FastaLineScanner extends FilterInputStream {
                 }
                 byte b = buf[i++];
                 switch (cls[b & 0xFF]) {
-                    case BLANK -> blankAfterBase |= lineHasBase;
+                    case BLANK -> {
+                        blankAfterBase |= lineHasBase;
+                        lineLength++;
+                        checkLineLength();
+                    }
                     case LF -> endLine(false);
                     case CR -> endLine(true);
                     default -> throw invalidCharacter(b);
@@ -172,9 +190,18 @@ final class FastaLineScanner extends FilterInputStream {
         }
         lineHasBase = true;
         currentBases += run;
+        lineLength += run;
         if (currentBases > maxRecordLength) {
             throw new BadInputException(fileName + ":" + line + ": record " + currentName
-                    + ": longer than " + maxRecordLength + " bases, the most one record can hold");
+                    + ": longer than " + maxRecordLength + " bases, " + limitReason);
+        }
+    }
+
+    /** Blanks cost the parser's line buffer as much as bases do, so a line of them has the record's bound. */
+    private void checkLineLength() {
+        if (lineLength > maxRecordLength) {
+            throw new BadInputException(fileName + ":" + line + ": line longer than " + maxRecordLength + " bytes, "
+                    + limitReason);
         }
     }
 
@@ -193,13 +220,14 @@ final class FastaLineScanner extends FilterInputStream {
             line++;
             afterCr = true;
         } else if (c == BLANK) {
-            return; // leading blanks: the parser trims them too
+            lineLength++; // leading blanks: the parser trims them, but only after buffering the line
+            checkLineLength();
         } else if (b == '>') {
             startHeader();
         } else if (b == ';') {
             state = COMMENT;
         } else if (currentName == null) {
-            throw new BadInputException(fileName + ":" + line + ": sequence data before the first '>' header");
+            throw beforeFirstHeader(b);
         } else if (c == BASE) {
             state = SEQUENCE;
         } else {
@@ -212,6 +240,11 @@ final class FastaLineScanner extends FilterInputStream {
         int i = from;
         while (i < to && buf[i] != '\n' && buf[i] != '\r') {
             i++;
+        }
+        lineLength += i - from;
+        if (lineLength >= MAX_HEADER_LENGTH) { // the '>' or ';' is not counted, so >= means over the limit
+            throw new BadInputException(fileName + ":" + line + ": " + (state == HEADER ? "header" : "comment")
+                    + " line longer than " + MAX_HEADER_LENGTH + " bytes");
         }
         if (state == HEADER) {
             appendHeader(buf, from, i - from);
@@ -230,6 +263,7 @@ final class FastaLineScanner extends FilterInputStream {
         line++;
         afterCr = cr;
         state = LINE_START;
+        lineLength = 0;
         lineHasBase = false;
         blankAfterBase = false;
     }
@@ -252,9 +286,16 @@ final class FastaLineScanner extends FilterInputStream {
     private void finishHeader() {
         boolean ascii = true;
         for (int i = 0; i < headerLength; i++) {
-            ascii &= header[i] >= 0;
+            byte b = header[i];
+            ascii &= b >= 0;
+            // tab separates words; any other C0 control byte is a sign of binary data (or a terminal escape that
+            // would end up in messages). DEL is left alone: it is inert, and GFF3 escapes it in a seqid
+            if (b >= 0 && b < ' ' && b != '\t') {
+                throw new BadInputException(fileName + ":" + headerLine + ": header has control byte "
+                        + String.format("0x%02x", b));
+            }
         }
-        String text = new String(header, 0, headerLength, StandardCharsets.UTF_8);
+        String text = ascii ? new String(header, 0, headerLength, StandardCharsets.US_ASCII) : utf8Header();
         // the parser trims every char <= ' ' from the line's end; do the same so the texts can be compared
         int end = text.length();
         while (end > 0 && text.charAt(end - 1) <= ' ') {
@@ -306,6 +347,37 @@ final class FastaLineScanner extends FilterInputStream {
         }
         finishRecord();
         state = LINE_START;
+    }
+
+    /** Names are compared and written out as text; bytes that are not UTF-8 would turn into replacement characters. */
+    private String utf8Header() {
+        try {
+            return StandardCharsets.UTF_8.newDecoder()
+                    .onMalformedInput(CodingErrorAction.REPORT)
+                    .onUnmappableCharacter(CodingErrorAction.REPORT)
+                    .decode(ByteBuffer.wrap(header, 0, headerLength))
+                    .toString();
+        } catch (CharacterCodingException e) {
+            throw new BadInputException(fileName + ":" + headerLine + ": header is not valid UTF-8 text");
+        }
+    }
+
+    /**
+     * A nucleotide code is sequence without a header; other printable text is another format (FASTQ's '@', a
+     * GFF3 '#', an HTML page); anything outside printable ASCII means the file is not text at all (binary data,
+     * UTF-16, a byte order mark).
+     */
+    private BadInputException beforeFirstHeader(byte b) {
+        int v = b & 0xFF;
+        String where = fileName + ":" + line + ": ";
+        if (CLASS[v] == BASE) {
+            return new BadInputException(where + "sequence data before the first '>' header");
+        }
+        if (v < ' ' || v >= 0x7F) {
+            return new BadInputException(where + "not FASTA text: byte " + String.format("0x%02x", v)
+                    + " before the first '>' header");
+        }
+        return new BadInputException(where + "not FASTA: expected a '>' header line, found '" + (char) v + "'");
     }
 
     private BadInputException invalidCharacter(byte b) {

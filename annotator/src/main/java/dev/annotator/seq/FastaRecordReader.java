@@ -25,7 +25,10 @@ import java.util.function.Consumer;
  * multi-line records reach it when BioJava's StringBuilder (grown by doubling, so up to 2L) is turned into
  * a String (L) and we copy that into our byte[] (L); a single-line record first needs BioJava's line buffer
  * (up to 2L) plus the line String (L), then builder, String and byte[] (L each, 3L). Afterwards only the
- * record's own L bytes stay. Blanks inside sequence lines cost one more L-byte copy to remove.
+ * record's own L bytes stay. Blanks inside sequence lines cost one more L-byte copy to remove. Header and
+ * comment lines are bounded by {@link FastaLineScanner#MAX_HEADER_LENGTH}, records by a {@link RecordLengthLimit}
+ * (by default the array limit; the pipeline passes what its heap can hold), so no input makes the parser buffer
+ * without bound.
  */
 public final class FastaRecordReader implements AutoCloseable {
     private final String fileName;
@@ -52,15 +55,24 @@ public final class FastaRecordReader implements AutoCloseable {
      * @throws dev.annotator.error.MissingInputException the file does not exist or cannot be read
      */
     public static FastaRecordReader open(String pathOrDash, InputStream stdin, Consumer<String> warnings) {
-        return open(pathOrDash, stdin, warnings, null);
+        return open(pathOrDash, stdin, warnings, RecordLengthLimit.ARRAY);
     }
 
-    /** As {@link #open(String, InputStream, Consumer)}, counting raw input bytes into {@code rawBytes} (may be null). */
+    /**
+     * As {@link #open(String, InputStream, Consumer)}, refusing records longer than {@code limit} as soon as the
+     * first base too many is read, before the parser has buffered more than that.
+     */
     public static FastaRecordReader open(String pathOrDash, InputStream stdin, Consumer<String> warnings,
-                                         java.util.concurrent.atomic.LongAdder rawBytes) {
+                                         RecordLengthLimit limit) {
+        return open(pathOrDash, stdin, warnings, limit, null);
+    }
+
+    /** As above, also counting the raw input bytes read into {@code rawBytes} (may be null), for progress. */
+    public static FastaRecordReader open(String pathOrDash, InputStream stdin, Consumer<String> warnings,
+                                         RecordLengthLimit limit, java.util.concurrent.atomic.LongAdder rawBytes) {
         String name = InputOpener.displayName(pathOrDash);
         InputStream in = InputOpener.open(pathOrDash, stdin, rawBytes);
-        return new FastaRecordReader(name, new FastaLineScanner(in, name), warnings);
+        return new FastaRecordReader(name, new FastaLineScanner(in, name, limit), warnings);
     }
 
     /**

@@ -107,6 +107,58 @@ class AnnotateCommandTest {
     }
 
     @Test
+    void unevenRecordsAndViterbiDoNotDependOnThreadsEither() throws IOException {
+        // Many records of very different lengths finish out of order on several threads: tiny ones, empty ones
+        // (skipped), long N runs, soft-masked stretches, and a few long enough to weigh on the memory budget.
+        for (long seed = 1; seed <= 4; seed++) {
+            Path input = Files.writeString(dir.resolve("uneven-" + seed + ".fa"), unevenFasta(seed));
+            for (String method : List.of("posterior", "viterbi")) {
+                CliRun.Result one = CliRun.run("annotate", "-q", "-m", "cpg-island", "--decode", method, "--threads",
+                        "1", input.toString());
+                assertThat(one.status()).as(one.stderr()).isZero();
+                assertThat(one.out()).contains("\tCpG_island\t");
+                // the empty records are warned about, in input order, whatever the threads
+                assertThat(one.errLines()).isNotEmpty().allMatch(l -> l.startsWith("annotator: warning: "));
+                for (String threads : List.of("2", "8", "8")) {
+                    CliRun.Result r = CliRun.run("annotate", "-q", "-m", "cpg-island", "--decode", method,
+                            "--threads", threads, input.toString());
+                    assertThat(r.stdout()).as("seed %d, %s, --threads %s", seed, method, threads)
+                            .isEqualTo(one.stdout());
+                    assertThat(r.stderr()).isEqualTo(one.stderr());
+                }
+            }
+        }
+    }
+
+    /** Invented: 40 records, lengths from 0 to 60 kb, with N runs and lowercase stretches. */
+    private static String unevenFasta(long seed) {
+        java.util.SplittableRandom rng = new java.util.SplittableRandom(seed);
+        StringBuilder sb = new StringBuilder();
+        for (int r = 1; r <= 40; r++) {
+            sb.append(">u").append(r).append('\n');
+            int length = switch (rng.nextInt(4)) {
+                case 0 -> rng.nextInt(3); // 0, 1 or 2 bases
+                case 1 -> rng.nextInt(200);
+                case 2 -> rng.nextInt(5_000);
+                default -> 20_000 + rng.nextInt(40_000);
+            };
+            // islands of C and G, so that both decodings call segments
+            boolean island = false;
+            for (int i = 0; i < length; i++) {
+                if (rng.nextInt(400) == 0) {
+                    island = !island;
+                }
+                char c = rng.nextInt(1000) < 3 ? 'N' : island ? "CGCGCGAT".charAt(rng.nextInt(8)) : "ACGTAT".charAt(rng.nextInt(6));
+                sb.append(i / 700 % 5 == 4 ? Character.toLowerCase(c) : c);
+                if (i % 60 == 59 || i == length - 1) {
+                    sb.append('\n');
+                }
+            }
+        }
+        return sb.toString();
+    }
+
+    @Test
     void viterbiAndPosteriorAgreeOnStronglyMarkedIslands() throws IOException {
         byte[] viterbiBytes = annotate("--decode", "viterbi", fasta.toString());
         // the option is not ignored: the two decodings differ somewhere (boundaries, at least)

@@ -17,7 +17,8 @@ import static dev.annotator.cli.CliAssertions.assertOneLineError;
 import static org.assertj.core.api.Assertions.assertThat;
 
 /**
- * Inputs a user can get wrong, driven through the command line. Each must end with the documented exit status,
+ * Inputs a user can get wrong that are not files of the bad-input corpus (those are run from their table by
+ * {@link BadInputCorpusTest}), driven through the command line. Each must end with the documented exit status,
  * one line on standard error that names the culprit, no stack trace, and no output file (final or temporary)
  * left in the output directory.
  *
@@ -32,26 +33,6 @@ class BadInputTest {
 
     @TempDir
     Path tmp;
-
-    @ParameterizedTest(name = "{0}")
-    @CsvSource(delimiter = '|', textBlock = """
-            empty.fa                    |   | no FASTA records
-            no-header.fa                | 1 | sequence data before the first '>' header
-            digit-in-sequence.fa        | 3 | record seqA: invalid character '9'
-            stop-symbol-in-sequence.fa  | 4 | record seqB: invalid character '*'
-            letter-j-in-sequence.fa     | 5 | record seqA: invalid character 'J'
-            control-byte-in-sequence.fa | 2 | record seqA: invalid character 0x01
-            """)
-    void malformedFastaIsBadData(String fixture, Integer line, String what) throws IOException {
-        Path input = CliRun.testData("bad", fixture);
-        Path outDir = outDir();
-        CliRun.Result r = CliRun.run("annotate", "-m", "cpg-island", "-o", outDir.resolve("calls.gff3").toString(),
-                input.toString());
-        // rule: "FILE:LINE: what is wrong" where a line is known, else "FILE: what"
-        String where = line == null ? input + ": " : input + ":" + line + ": ";
-        assertOneLineError(r, DATA, where + what);
-        assertNothingWritten(r, outDir);
-    }
 
     @Test
     void truncatedGzipIsBadData() throws IOException {
@@ -86,24 +67,16 @@ class BadInputTest {
         }
     }
 
-    @ParameterizedTest(name = "{0}")
-    @CsvSource(delimiter = '|', textBlock = """
-            model-not-json.json        | :1: not valid JSON
-            model-missing-comma.json   | :5: not valid JSON
-            model-wrong-shape.json     | ': states: expected an array, found an object'
-            model-row-not-summing.json | ': state "hot": emissions["C"] values sum to 1.1, expected 1'
-            """)
-    void malformedModelIsBadData(String fixture, String what) throws IOException {
-        Path model = CliRun.testData("bad", fixture);
-        Path outDir = outDir();
-        CliRun.Result r = CliRun.run("annotate", "-m", model.toString(), "-o", outDir.resolve("calls.gff3").toString(),
-                CliRun.testData("fasta", "two-records.fa").toString());
-        assertOneLineError(r, DATA, model + what);
-        assertNothingWritten(r, outDir);
-
-        CliRun.Result check = CliRun.run("model", "check", model.toString());
-        assertOneLineError(check, DATA, model + what);
-        assertThat(check.stdout()).isEmpty();
+    @Test
+    void debugAddsTheStackTraceAndOnlyDebugDoes() {
+        Path input = CliRun.testData("bad", "digit-in-sequence.fa");
+        String error = "annotator: error: " + input + ":3: record seqA: invalid character '9' (0x39) in sequence";
+        CliRun.Result plain = CliRun.run("annotate", "-m", "cpg-island", input.toString());
+        assertOneLineError(plain, DATA, error);
+        CliRun.Result debug = CliRun.run("annotate", "--debug", "-m", "cpg-island", input.toString());
+        assertThat(debug.status()).isEqualTo(DATA);
+        assertThat(debug.errLines().get(0)).isEqualTo(error);
+        assertThat(debug.stderr()).contains("BadInputException").contains("\tat dev.annotator.");
     }
 
     @Test

@@ -134,6 +134,75 @@ class InputOpenerTest {
     }
 
     @Test
+    void dataAfterTheLastMemberIsBadInput() throws IOException {
+        // java.util.zip.GZIPInputStream ignores such data without a word; records in it would be lost silently
+        byte[] gz = gzip(TEXT);
+        byte[] secondCut = Arrays.copyOf(gzip(TEXT), 5); // a further member cut inside its 10-byte header
+        String trailing = ": data after the end of the gzip data (a damaged further member, or bytes appended to "
+                + "the file)";
+        Path appended = write("appended.gz", concat(gz, "appended text\n".getBytes(StandardCharsets.US_ASCII)));
+        Path zeros = write("zeros.gz", concat(gz, new byte[512]));
+        Path cut = write("cut-second.gz", concat(gz, secondCut));
+        assertThat(catchThrowableOfType(BadInputException.class, () -> readAll(appended.toString(), null)))
+                .hasMessage(appended + trailing);
+        assertThat(catchThrowableOfType(BadInputException.class, () -> readAll(zeros.toString(), null)))
+                .hasMessage(zeros + trailing);
+        assertThat(catchThrowableOfType(BadInputException.class, () -> readAll(cut.toString(), null)))
+                .hasMessage(cut + ": truncated or corrupt gzip data");
+    }
+
+    @Test
+    void optionalHeaderFieldsAreSkipped() throws IOException {
+        // RFC 1952 section 2.3.1: FEXTRA (length-prefixed), FNAME and FCOMMENT (zero-terminated), FHCRC (2 bytes)
+        byte[] deflated = rawDeflate(TEXT);
+        java.util.zip.CRC32 crc = new java.util.zip.CRC32();
+        crc.update(TEXT);
+        ByteArrayOutputStream member = new ByteArrayOutputStream();
+        member.write(new byte[] {0x1f, (byte) 0x8b, 8, 2 | 4 | 8 | 16, 0, 0, 0, 0, 0, 3});
+        member.write(new byte[] {3, 0, 'a', 'b', 'c'});
+        member.write("reads.fa\0".getBytes(StandardCharsets.US_ASCII));
+        member.write("an invented comment\0".getBytes(StandardCharsets.US_ASCII));
+        java.util.zip.CRC32 headerCrc = new java.util.zip.CRC32();
+        headerCrc.update(member.toByteArray());
+        member.write((int) headerCrc.getValue() & 0xFF);
+        member.write((int) (headerCrc.getValue() >>> 8) & 0xFF);
+        int headerEnd = member.size();
+        member.write(deflated);
+        for (long v : new long[] {crc.getValue(), TEXT.length}) {
+            for (int i = 0; i < 4; i++) {
+                member.write((int) (v >>> (8 * i)) & 0xFF);
+            }
+        }
+        byte[] gz = member.toByteArray();
+        // the JDK's own reader is the reference that the hand-made member is well formed
+        try (InputStream jdk = new java.util.zip.GZIPInputStream(new ByteArrayInputStream(gz))) {
+            assertThat(jdk.readAllBytes()).isEqualTo(TEXT);
+        }
+        assertThat(readAll(write("fields.gz", gz).toString(), null)).isEqualTo(TEXT);
+        gz[headerEnd - 1] ^= 0x01;
+        Path damaged = write("header-crc.gz", gz);
+        assertThat(catchThrowableOfType(BadInputException.class, () -> readAll(damaged.toString(), null)))
+                .hasMessage(damaged + ": truncated or corrupt gzip data");
+    }
+
+    @Test
+    void blockGzipAsWrittenByHtsjdkReads() throws IOException {
+        // BGZF (SAM/BAM specification, section 4.1): gzip members with an extra field, closed by an empty member;
+        // htsjdk's writer is the independent producer
+        byte[] text = new byte[300_000];
+        for (int i = 0; i < text.length; i++) {
+            text[i] = (byte) (i % 61 == 60 ? '\n' : "ACGT".charAt((i * 7 + i / 11) % 4));
+        }
+        text[0] = '>';
+        Path f = dir.resolve("blocks.fa.gz");
+        try (htsjdk.samtools.util.BlockCompressedOutputStream out =
+                     new htsjdk.samtools.util.BlockCompressedOutputStream(f.toFile())) {
+            out.write(text);
+        }
+        assertThat(readAll(f.toString(), null)).isEqualTo(text);
+    }
+
+    @Test
     void deviceFailureWhileReadingIsIoFailure() {
         InputStream failing = new SequenceInputStream(new ByteArrayInputStream(TEXT), new InputStream() {
             @Override
@@ -158,6 +227,19 @@ class InputOpenerTest {
 
     private Path write(String name, byte[] content) throws IOException {
         return Files.write(dir.resolve(name), content);
+    }
+
+    private static byte[] rawDeflate(byte[] data) {
+        java.util.zip.Deflater deflater = new java.util.zip.Deflater(6, true);
+        deflater.setInput(data);
+        deflater.finish();
+        ByteArrayOutputStream out = new ByteArrayOutputStream();
+        byte[] chunk = new byte[4096];
+        while (!deflater.finished()) {
+            out.write(chunk, 0, deflater.deflate(chunk));
+        }
+        deflater.end();
+        return out.toByteArray();
     }
 
     static byte[] gzip(byte[] data) throws IOException {

@@ -1,14 +1,17 @@
 package dev.annotator.model;
 
 import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.annotator.error.BadInputException;
 import org.junit.jupiter.api.Test;
 
 import java.io.ByteArrayInputStream;
 import java.io.ByteArrayOutputStream;
+import java.io.InputStream;
 import java.nio.charset.StandardCharsets;
 import java.util.List;
 
 import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.catchThrowableOfType;
 
 class ModelJsonTest {
 
@@ -134,5 +137,46 @@ class ModelJsonTest {
         String json = ModelJson.toJson(everything());
         assertThat(json).startsWith("{\n  \"format\": \"annotator-hmm/1\",\n  \"name\": \"every-part\",").endsWith("}\n");
         assertThat(json).contains("    {\"from\": \"r\", \"to\": \"i\", \"p\": 0.005}\n");
+    }
+
+    @Test
+    void aStreamLongerThanTheSizeLimitIsStoppedWhileBeingRead() {
+        // whitespace is valid JSON padding, so only the size limit can stop this stream; it is made as it is read
+        long total = ModelJson.MAX_FILE_BYTES + (1 << 20);
+        long[] served = {0};
+        InputStream padding = new InputStream() {
+            @Override
+            public int read() {
+                return served[0]++ < total ? ' ' : -1;
+            }
+
+            @Override
+            public int read(byte[] b, int off, int len) {
+                int n = (int) Math.min(len, total - served[0]);
+                if (n <= 0) {
+                    return -1;
+                }
+                java.util.Arrays.fill(b, off, off + n, (byte) ' ');
+                served[0] += n;
+                return n;
+            }
+        };
+        BadInputException e = catchThrowableOfType(BadInputException.class, () -> ModelJson.read(padding, "pipe"));
+        assertThat(e).hasMessage("pipe: larger than 64 MiB, the most a model file may be");
+        assertThat(served[0]).isLessThan(total);
+    }
+
+    @Test
+    void parserMessagesLoseTheParserSettingsTheyName() {
+        // messages as Jackson 2.21 words them; the user cannot act on the names of its settings
+        assertThat(ModelJson.withoutParserSettings("Non-standard token 'NaN': enable "
+                + "`JsonReadFeature.ALLOW_NON_NUMERIC_NUMBERS` to allow")).isEqualTo("Non-standard token 'NaN'");
+        assertThat(ModelJson.withoutParserSettings("Trailing token (of type START_OBJECT) found after value (bound as "
+                + "`com.fasterxml.jackson.databind.JsonNode`): not allowed as per "
+                + "`DeserializationFeature.FAIL_ON_TRAILING_TOKENS`"))
+                .isEqualTo("Trailing token (of type START_OBJECT) found after value");
+        assertThat(ModelJson.withoutParserSettings("Document nesting depth (1001) exceeds the maximum allowed (1000, "
+                + "from `StreamReadConstraints.getMaxNestingDepth()`)"))
+                .isEqualTo("Document nesting depth (1001) exceeds the maximum allowed (1000)");
     }
 }

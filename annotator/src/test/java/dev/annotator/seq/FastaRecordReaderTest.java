@@ -176,7 +176,58 @@ class FastaRecordReaderTest {
         Path f = write("headless.fa", "\nACGT\n>a\nAC\n");
         assertBad(f, f + ":2: sequence data before the first '>' header");
         Path binary = write("binary.fa", new byte[] {0x50, 0x4b, 0x03, 0x04, 0, 0});
-        assertBad(binary, binary + ":1: sequence data before the first '>' header");
+        assertBad(binary, binary + ": zip-compressed data; only plain or gzip-compressed input is read "
+                + "(decompress it first)");
+    }
+
+    @Test
+    void whatCannotBeFastaIsNamedForWhatItIs() throws IOException {
+        Path fastq = write("reads.fq", "@r1\nACGT\n+\nIIII\n");
+        assertBad(fastq, fastq + ":1: not FASTA: expected a '>' header line, found '@'");
+        Path bom = write("bom.fa", new byte[] {(byte) 0xef, (byte) 0xbb, (byte) 0xbf, '>', 'a', '\n', 'A', '\n'});
+        assertBad(bom, bom + ":1: not FASTA text: byte 0xef before the first '>' header");
+        Path nul = write("nul.fa", new byte[] {'\n', 0, '>', 'a'});
+        assertBad(nul, nul + ":2: not FASTA text: byte 0x00 before the first '>' header");
+    }
+
+    @Test
+    void headerWithControlByteOrBrokenUtf8() throws IOException {
+        Path esc = write("esc.fa", ">a\nAC\n>b\u001b[0m desc\nGG\n");
+        assertBad(esc, esc + ":3: header has control byte 0x1b");
+        // DEL is no C0 control byte and stays part of the name (the conformance tests escape it in GFF3)
+        assertThat(readAll(write("del.fa", ">a\u007fb desc\nAC\n").toString())).extracting(SequenceRecord::name)
+                .containsExactly("a\u007fb");
+        // a tab separates name and description and is no control byte here
+        assertThat(readAll(write("tab.fa", ">a\tdesc\nAC\n").toString())).extracting(SequenceRecord::name)
+                .containsExactly("a");
+        Path latin1 = write("latin1.fa", new byte[] {'>', 's', (byte) 0xe9, 'q', '\n', 'A', '\n'});
+        assertBad(latin1, latin1 + ":1: header is not valid UTF-8 text");
+    }
+
+    @Test
+    void headerAndCommentLinesAreBoundedAtOneMebibyte() throws IOException {
+        int max = FastaLineScanner.MAX_HEADER_LENGTH;
+        // a header line of exactly the limit, '>' included, is read; one byte more is refused
+        String name = "n" + "x".repeat(max - 2);
+        assertThat(readAll(write("at-limit.fa", ">" + name + "\nACGT\n").toString()))
+                .extracting(SequenceRecord::name).containsExactly(name);
+        Path over = write("over.fa", ">" + name + "x\nACGT\n");
+        assertBad(over, over + ":1: header line longer than " + max + " bytes");
+        Path comment = write("comment.fa", ">a\nAC\n;" + "c".repeat(max) + "\nGT\n");
+        assertBad(comment, comment + ":3: comment line longer than " + max + " bytes");
+    }
+
+    @Test
+    void blanksCountTowardsTheLineBoundOfTheRecordLimit() {
+        // the parser buffers a whole line, blanks included, before trimming it: a long run of blanks costs as
+        // much memory as bases
+        RecordLengthLimit ten = new RecordLengthLimit(10, "the test's limit");
+        assertThat(scan(">a\nACGTA  CGTA\n", ten)).extracting(FastaRecordReaderTest::text)
+                .containsExactly("ACGTACGTA");
+        assertThat(catchThrowableOfType(BadInputException.class, () -> scan(">a\nAC         GT\n", ten)))
+                .hasMessage("t.fa:2: line longer than 10 bytes, the test's limit");
+        assertThat(catchThrowableOfType(BadInputException.class, () -> scan(">a\nAC\n           \nGT\n", ten)))
+                .hasMessage("t.fa:3: line longer than 10 bytes, the test's limit");
     }
 
     @Test
@@ -289,7 +340,8 @@ class FastaRecordReaderTest {
     @Test
     void recordLongerThanTheLimitIsRejected() {
         byte[] data = ">big\nACGTA\nCGTAC\nGT\n".getBytes(StandardCharsets.US_ASCII);
-        FastaLineScanner scanner = new FastaLineScanner(new ByteArrayInputStream(data), "t.fa", 10);
+        FastaLineScanner scanner = new FastaLineScanner(new ByteArrayInputStream(data), "t.fa",
+                new RecordLengthLimit(10, "the most one record can hold"));
         BadInputException e = catchThrowableOfType(BadInputException.class, () -> {
             try (FastaRecordReader r = new FastaRecordReader("t.fa", scanner, warnings::add)) {
                 r.next();
@@ -299,6 +351,18 @@ class FastaRecordReaderTest {
     }
 
     // ---- helpers ----
+
+    private List<SequenceRecord> scan(String text, RecordLengthLimit limit) {
+        FastaLineScanner scanner = new FastaLineScanner(
+                new ByteArrayInputStream(text.getBytes(StandardCharsets.US_ASCII)), "t.fa", limit);
+        List<SequenceRecord> out = new ArrayList<>();
+        try (FastaRecordReader r = new FastaRecordReader("t.fa", scanner, warnings::add)) {
+            for (SequenceRecord rec; (rec = r.next()) != null; ) {
+                out.add(rec);
+            }
+        }
+        return out;
+    }
 
     private void assertBad(Path f, String message) {
         AnnotatorException e = catchThrowableOfType(AnnotatorException.class, () -> readAll(f.toString()));

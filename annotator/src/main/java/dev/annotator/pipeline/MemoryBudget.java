@@ -1,0 +1,45 @@
+package dev.annotator.pipeline;
+
+import dev.annotator.decode.DecodeMethod;
+import dev.annotator.seq.RecordLengthLimit;
+
+import java.util.Locale;
+
+/**
+ * Sizes an annotation run to the Java heap, so that an input too large for it (a multi-gigabyte line, a gzip that
+ * inflates to one) is refused with a message as soon as the reader has seen too much, instead of ending in an
+ * OutOfMemoryError somewhere in the parser or a kernel.
+ *
+ * <p>Bytes per base, from the code as it stands: reading a record peaks at about {@value #READ_BYTES_PER_BASE}
+ * (see {@code FastaRecordReader}); a record being decoded holds its own byte per base, plus for Viterbi one
+ * back-pointer byte per state and a 4-byte state index per base. Posterior decoding needs nothing per base beyond
+ * the record: the kernels work in fixed-size blocks.
+ *
+ * @param recordLimit   the longest record the reader accepts: one record read while as many bases as
+ *                      {@code basesInFlight} are being decoded still fits in {@value #USABLE_PERCENT}% of the heap
+ * @param basesInFlight how many bases may be decoded at once across all threads
+ */
+record MemoryBudget(RecordLengthLimit recordLimit, long basesInFlight) {
+    static final int READ_BYTES_PER_BASE = 4;
+    /** The rest of the heap is left for the model, buffers, output and the collector's working room. */
+    static final int USABLE_PERCENT = 80;
+
+    static MemoryBudget of(long maxHeapBytes, int states, DecodeMethod method) {
+        long decodeBytesPerBase = 1 + (method == DecodeMethod.VITERBI ? states + 4L : 0);
+        long usable = maxHeapBytes / 100 * USABLE_PERCENT;
+        long bases = usable / (READ_BYTES_PER_BASE + decodeBytesPerBase);
+        if (method == DecodeMethod.VITERBI) {
+            // the back-pointer table of bases x states is one Java array
+            bases = Math.min(bases, RecordLengthLimit.ARRAY_MAX / states);
+        }
+        bases = Math.max(1, Math.min(bases, RecordLengthLimit.ARRAY_MAX));
+        String reason = String.format(Locale.ROOT, "the most this run can hold in memory (Java heap limit %d MiB; "
+                + "give java more with -Xmx)", maxHeapBytes >> 20);
+        return new MemoryBudget(new RecordLengthLimit(bases, reason), bases);
+    }
+
+    /** For the heap this JVM may grow to. */
+    static MemoryBudget ofThisJvm(int states, DecodeMethod method) {
+        return of(Runtime.getRuntime().maxMemory(), states, method);
+    }
+}

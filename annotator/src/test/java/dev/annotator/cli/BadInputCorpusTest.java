@@ -1,0 +1,124 @@
+package dev.annotator.cli;
+
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.MethodSource;
+
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.stream.Stream;
+
+import static org.assertj.core.api.Assertions.assertThat;
+
+/**
+ * The bad-input corpus, driven by its own documentation: every row of the table "Bad inputs" in test-data/README.md
+ * is run through the command line, so the table is the specification and cannot drift from the files or the tests.
+ *
+ * <p>Exit statuses are those of the README's "Exit status" table: 65 is EX_DATAERR of BSD sysexits(3) (recalled
+ * from memory).
+ */
+class BadInputCorpusTest {
+    private static final Path README = CliRun.testData("README.md");
+    private static final Path BAD = CliRun.testData("bad");
+    private static final String SECTION = "## Bad inputs";
+
+    /** One table row: the file, how it is used, what is wrong with it, the exit status, the message after the file. */
+    record Row(String file, String usedAs, String what, int exit, String message) {
+        @Override
+        public String toString() {
+            return file;
+        }
+    }
+
+    @TempDir
+    Path tmp;
+
+    static List<Row> rows() {
+        List<String> lines;
+        try {
+            lines = Files.readAllLines(README);
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+        int start = lines.indexOf(lines.stream().filter(l -> l.startsWith(SECTION)).findFirst()
+                .orElseThrow(() -> new AssertionError("no section '" + SECTION + "' in " + README)));
+        List<Row> rows = new ArrayList<>();
+        for (String line : lines.subList(start + 1, lines.size())) {
+            if (line.startsWith("## ")) {
+                break;
+            }
+            if (!line.startsWith("| `")) {
+                continue; // prose, the header row and its rule
+            }
+            // no cell holds a '|', so the row splits cleanly; the ends of the line give two empty pieces
+            String[] cells = line.split("\\|", -1);
+            if (cells.length != 7) {
+                throw new AssertionError("row needs 5 cells: " + line);
+            }
+            rows.add(new Row(code(cells[1]), cells[2].strip(), cells[3].strip(), Integer.parseInt(cells[4].strip()),
+                    code(cells[5])));
+        }
+        return rows;
+    }
+
+    private static String code(String cell) {
+        String s = cell.strip();
+        if (s.length() < 2 || !s.startsWith("`") || !s.endsWith("`")) {
+            throw new AssertionError("expected a `code` cell: " + cell);
+        }
+        return s.substring(1, s.length() - 1);
+    }
+
+    @Test
+    void tableAndFolderListTheSameFilesAndEnoughOfThem() throws IOException {
+        List<String> listed = rows().stream().map(Row::file).toList();
+        List<String> present;
+        try (Stream<Path> files = Files.list(BAD)) {
+            present = files.map(p -> p.getFileName().toString()).toList();
+        }
+        assertThat(listed).doesNotHaveDuplicates().containsExactlyInAnyOrderElementsOf(present);
+        // the hardening issue asks for a corpus of at least 40 bad inputs
+        assertThat(listed).hasSizeGreaterThanOrEqualTo(40);
+        assertThat(rows()).allSatisfy(r -> {
+            assertThat(r.usedAs()).isIn("FASTA", "model");
+            assertThat(r.what()).isNotBlank();
+            assertThat(r.message()).isNotBlank();
+        });
+    }
+
+    @ParameterizedTest(name = "{0}")
+    @MethodSource("rows")
+    void everyRowFailsAsTheTableSays(Row row) throws IOException {
+        Path file = BAD.resolve(row.file());
+        Path outDir = Files.createTempDirectory(tmp, "out");
+        String out = outDir.resolve("calls.gff3").toString();
+        if (row.usedAs().equals("FASTA")) {
+            assertFails(row, file, CliRun.run("annotate", "-m", "cpg-island", "-o", out, file.toString()));
+        } else {
+            assertFails(row, file, CliRun.run("annotate", "-m", file.toString(), "-o", out,
+                    CliRun.testData("fasta", "two-records.fa").toString()));
+            CliRun.Result check = CliRun.run("model", "check", file.toString());
+            assertFails(row, file, check);
+        }
+        try (Stream<Path> left = Files.list(outDir)) {
+            // neither the output nor its hidden temporary ".NAME.*.partial" may survive a failed run
+            assertThat(left.map(p -> p.getFileName().toString())).as("files left by a failed run").isEmpty();
+        }
+    }
+
+    private static void assertFails(Row row, Path file, CliRun.Result r) {
+        assertThat(r.status()).as("exit status; stderr: %s", r.stderr()).isEqualTo(row.exit());
+        assertThat(r.stdout()).as("stdout").isEmpty();
+        List<String> lines = r.errLines();
+        assertThat(lines).as("stderr").isNotEmpty();
+        // warnings may come first (skipped empty records); the error is the one last line
+        assertThat(lines.subList(0, lines.size() - 1)).allMatch(l -> l.startsWith("annotator: warning: "));
+        assertThat(lines.get(lines.size() - 1)).startsWith("annotator: error: " + file + row.message())
+                .doesNotContain("Exception").doesNotContain("\tat ");
+    }
+}
