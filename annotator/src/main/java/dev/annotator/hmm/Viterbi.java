@@ -50,6 +50,10 @@ public final class Viterbi {
         }
         int[] predOffset = p.predOffset();
         int[] predState = p.predState();
+        if ((long) n * k > Integer.MAX_VALUE - 8) {
+            throw new IllegalArgumentException("Viterbi back-pointers for " + n + " bases x " + k
+                    + " states exceed one Java array; decode this record with posterior decoding");
+        }
         byte[] back = new byte[n * k];
         double[] prev = new double[k];
         double[] cur = new double[k];

@@ -12,7 +12,7 @@ import java.util.Locale;
  *
  * <p>Bytes per base, from the code as it stands: reading a record peaks at about {@value #READ_BYTES_PER_BASE}
  * (see {@code FastaRecordReader}); a record being decoded holds its own byte per base, plus for Viterbi one
- * back-pointer byte per state and a 4-byte state index per base. Posterior decoding needs nothing per base beyond
+ * back-pointer byte per state and a one-byte state per base (the path). Posterior decoding needs nothing per base beyond
  * the record: the kernels work in fixed-size blocks.
  *
  * @param recordLimit   the longest record the reader accepts: one record read while as many bases as
@@ -25,7 +25,7 @@ record MemoryBudget(RecordLengthLimit recordLimit, long basesInFlight) {
     static final int USABLE_PERCENT = 80;
 
     static MemoryBudget of(long maxHeapBytes, int states, DecodeMethod method) {
-        long decodeBytesPerBase = 1 + (method == DecodeMethod.VITERBI ? states + 4L : 0);
+        long decodeBytesPerBase = 1 + (method == DecodeMethod.VITERBI ? states + 1L : 0);
         long usable = maxHeapBytes / 100 * USABLE_PERCENT;
         long bases = usable / (READ_BYTES_PER_BASE + decodeBytesPerBase);
         if (method == DecodeMethod.VITERBI) {

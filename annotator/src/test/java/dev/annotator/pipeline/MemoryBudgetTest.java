@@ -22,9 +22,10 @@ class MemoryBudgetTest {
     }
 
     @Test
-    void viterbiAddsABackPointerPerStateAndAStateIndexPerBase() {
+    void viterbiAddsABackPointerPerStateAndAPathBytePerBase() {
         MemoryBudget b = MemoryBudget.of(1000 * MIB, 3, DecodeMethod.VITERBI);
-        assertThat(b.recordLimit().bases()).isEqualTo(1000 * MIB / 100 * 80 / (4 + 1 + 3 + 4));
+        // reading 4 + record 1 + back-pointers 3 + path 1 bytes per base
+        assertThat(b.recordLimit().bases()).isEqualTo(1000 * MIB / 100 * 80 / (4 + 1 + 3 + 1));
     }
 
     @Test
