@@ -24,14 +24,32 @@ final class TestModels {
      * @param emissions   full-order table per state
      */
     static HmmModel model(String[] names, double[] start, double[][] transitions, int[] orders, double[][] emissions) {
+        int[] own = new int[names.length];
+        for (int s = 0; s < own.length; s++) {
+            own[s] = s;
+        }
+        return model(names, own, start, transitions, orders, emissions);
+    }
+
+    /**
+     * As above, with several states per label: state s has label "L" + labelOf[s]; the highest label index is the
+     * background.
+     */
+    static HmmModel model(String[] names, int[] labelOf, double[] start, double[][] transitions, int[] orders,
+                          double[][] emissions) {
         int k = names.length;
+        int labelCount = java.util.Arrays.stream(labelOf).max().orElse(0) + 1;
+        boolean own = labelCount == k;
         List<Label> labels = new ArrayList<>();
+        for (int l = 0; l < labelCount; l++) {
+            boolean background = l == labelCount - 1;
+            String name = own ? names[l] : "L" + l;
+            labels.add(new Label(name, background ? null : "region_" + name, null, background, false));
+        }
         List<State> states = new ArrayList<>();
         List<Transition> ts = new ArrayList<>();
         for (int s = 0; s < k; s++) {
-            boolean background = s == k - 1;
-            labels.add(new Label(names[s], background ? null : "region_" + names[s], null, background, false));
-            states.add(new State(names[s], names[s], orders[s], emissions[s]));
+            states.add(new State(names[s], labels.get(labelOf[s]).name(), orders[s], emissions[s]));
             for (int j = 0; j < k; j++) {
                 if (transitions[s][j] >= 0) {
                     ts.add(new Transition(names[s], names[j], transitions[s][j]));
@@ -46,6 +64,11 @@ final class TestModels {
 
     /** A random valid model: dense or sparse transitions (every row keeps its self-transition), orders 0..maxOrder. */
     static HmmModel random(SplittableRandom rng, int k, int maxOrder, boolean dense) {
+        return random(rng, k, maxOrder, dense, null);
+    }
+
+    /** As above; with {@code labelOf}, states share labels as it says (see {@link #model(String[], int[], double[], double[][], int[], double[][])}). */
+    static HmmModel random(SplittableRandom rng, int k, int maxOrder, boolean dense, int[] labelOf) {
         String[] names = new String[k];
         double[][] a = new double[k][k];
         int[] orders = new int[k];
@@ -71,7 +94,8 @@ final class TestModels {
                 System.arraycopy(distribution(rng, 4), 0, e[s], r * 4, 4);
             }
         }
-        return model(names, distribution(rng, k), a, orders, e);
+        return labelOf == null ? model(names, distribution(rng, k), a, orders, e)
+                : model(names, labelOf, distribution(rng, k), a, orders, e);
     }
 
     static double[] distribution(SplittableRandom rng, int n) {
