@@ -6,7 +6,10 @@ import dev.annotator.model.HmmModel;
 import dev.annotator.model.ModelJson;
 import dev.annotator.model.ModelLoader;
 import dev.annotator.model.ModelValidator;
+import dev.annotator.pipeline.CountsMerge;
 import dev.annotator.pipeline.TrainingPipeline;
+import dev.annotator.train.CountsJson;
+import dev.annotator.train.ShardCounts;
 import dev.annotator.train.Freeze;
 import dev.annotator.train.IterationProgress;
 import dev.annotator.train.RunStamp;
@@ -17,6 +20,7 @@ import picocli.CommandLine.ITypeConverter;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.ParameterException;
+import picocli.CommandLine.ParseResult;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.ParentCommand;
 import picocli.CommandLine.Spec;
@@ -43,6 +47,8 @@ import java.util.concurrent.Callable;
                 "  annotator train -m cpg-island --method baum-welch --threads 2 -o fitted.json contigs.fa",
                 "  annotator train -m my-model.json --method baum-welch --restarts 4 --seed 7 \\",
                 "      --freeze transitions -o fitted.json a.fa b.fa",
+                "  annotator train -m m0.json --method baum-welch --emit-counts part1.counts.json part1.fa",
+                "  annotator train -m m0.json --merge-counts part1.counts.json part2.counts.json -o m1.json",
                 "",
                 "Progress: one line per iteration on standard error (log-likelihood, gain, seconds).",
                 "",
@@ -106,6 +112,16 @@ final class TrainCommand implements Callable<Integer> {
             description = "Threads (default: number of processors). The trained model is identical for any N.")
     Integer threads;
 
+    @Option(names = "--emit-counts", paramLabel = "SHARD.counts.json",
+            description = "Write the expected counts of one E-step on these inputs instead of a model: one shard of a "
+                    + "sharded iteration.")
+    String emitCounts;
+
+    @Option(names = "--merge-counts", paramLabel = "SHARD.counts.json", arity = "1..*",
+            description = "Add up shard count files made with START_MODEL and write the re-estimated model "
+                    + "(the M-step of a sharded iteration); takes no INPUT.")
+    List<String> mergeCounts;
+
     @Option(names = {"-q", "--quiet"}, description = "Print nothing on standard error except errors.")
     boolean quiet;
 
@@ -122,8 +138,14 @@ final class TrainCommand implements Callable<Integer> {
         require(tolerance >= 0 && Double.isFinite(tolerance),
                 "--tolerance must be a finite number of at least 0, got " + tolerance);
         require(restarts >= 0, "--restarts must not be negative, got " + restarts);
+        if (mergeCounts != null) {
+            return merge();
+        }
         require(method != null, "--method is required (counting or baum-welch)");
-        require(output != null, "-o is required");
+        require(output != null || emitCounts != null, "-o or --emit-counts is required");
+        require(output == null || emitCounts == null, "-o and --emit-counts exclude each other: a shard writes counts, "
+                + "not a model");
+        require(emitCounts == null || restarts == 0, "--restarts does not apply to --emit-counts (one E-step)");
         require(!inputs.isEmpty(), "no INPUT.fa given");
         require(!inputs.contains("-"), "train reads its inputs more than once and records their SHA-256; "
                 + "give FASTA files, not standard input (-)");
@@ -138,15 +160,14 @@ final class TrainCommand implements Callable<Integer> {
         PrintWriter err = parent.streams().err();
         TrainingPipeline pipeline = new TrainingPipeline(start, model, inputs, labels, options, n,
                 w -> err.println("annotator: warning: " + w));
+        if (emitCounts != null) {
+            return emit(pipeline, start, err);
+        }
         try (OutputTarget out = OutputTarget.open(output, parent.streams().out())) {
             HmmModel trained = pipeline.train(quiet ? (r, rs, i, ll, g, b, s) -> { } : progress(err), stamp());
             validate(trained, out.name());
             ModelJson.write(trained, out.stream());
-            try {
-                out.commit();
-            } catch (IOException e) {
-                throw new IoFailureException(out.name() + ": write failed (" + e.getMessage() + ")", e);
-            }
+            commit(out);
             if (!quiet) {
                 var t = trained.provenance().training();
                 err.println(String.format(Locale.ROOT, "annotator: wrote %s: %s, %d iteration(s)%s, "
@@ -156,6 +177,56 @@ final class TrainCommand implements Callable<Integer> {
             }
         }
         return 0;
+    }
+
+    private int emit(TrainingPipeline pipeline, HmmModel start, PrintWriter err) {
+        long t0 = System.nanoTime();
+        try (OutputTarget out = OutputTarget.open(emitCounts, parent.streams().out())) {
+            ShardCounts shard = pipeline.countShard();
+            CountsJson.write(shard, start, out.stream());
+            commit(out);
+            if (!quiet) {
+                err.println(String.format(Locale.ROOT, "annotator: wrote %s: counts of %d record(s), %.3f Mbp, "
+                                + "log-likelihood %.6f, %.2f s", out.name(), shard.counts().records(),
+                        shard.counts().bases() / 1e6, shard.counts().logLikelihood(), (System.nanoTime() - t0) / 1e9));
+            }
+        }
+        return 0;
+    }
+
+    private int merge() {
+        ParseResult parsed = spec.commandLine().getParseResult();
+        for (String notHere : List.of("--labels", "--emit-counts", "--restarts", "--max-iter", "--threads")) {
+            require(!parsed.hasMatchedOption(notHere), notHere + " does not apply to --merge-counts");
+        }
+        require(inputs.isEmpty(), "--merge-counts takes count files, not INPUT.fa files");
+        require(output != null, "-o is required");
+        HmmModel start = ModelLoader.load(model);
+        TrainingOptions options = new TrainingOptions(method == null ? TrainingMethod.BAUM_WELCH : method,
+                pseudocount, maxIterations, tolerance, 0, seed, freeze == null ? Freeze.NONE : freeze);
+        PrintWriter err = parent.streams().err();
+        try (OutputTarget out = OutputTarget.open(output, parent.streams().out())) {
+            CountsMerge.Outcome m = new CountsMerge(start, options).merge(mergeCounts, method, stamp());
+            validate(m.model(), out.name());
+            ModelJson.write(m.model(), out.stream());
+            commit(out);
+            if (!quiet) {
+                String gain = Double.isNaN(m.gain()) ? "" : String.format(Locale.ROOT, ", gain %.6f (%.3g per base)",
+                        m.gain(), m.gain() / Math.max(1, m.bases()));
+                err.println(String.format(Locale.ROOT, "annotator: merged %d shard(s), iteration %d: log-likelihood "
+                                + "of %s %.6f%s%s; wrote %s", m.shards(), m.iteration(), model, m.startLogLikelihood(),
+                        gain, m.converged() ? ", converged" : "", out.name()));
+            }
+        }
+        return 0;
+    }
+
+    private static void commit(OutputTarget out) {
+        try {
+            out.commit();
+        } catch (IOException e) {
+            throw new IoFailureException(out.name() + ": write failed (" + e.getMessage() + ")", e);
+        }
     }
 
     /** A trained model must read back: with --pseudocount 0 a state can lose every way in. */

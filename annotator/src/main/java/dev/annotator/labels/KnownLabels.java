@@ -77,15 +77,19 @@ public final class KnownLabels {
     }
 
     /**
-     * Checks that every labelled seqid is a record of the inputs and that every feature lies inside its record.
+     * Checks that every feature lies inside its record and, when {@code allSeqids}, that every labelled seqid is
+     * a record of the inputs.
      *
      * @param recordLengths record name to length, over all inputs
      * @param inputs        how to name the inputs in a message
      */
-    public void checkAgainst(Map<String, Integer> recordLengths, String inputs) {
+    public void checkAgainst(Map<String, Integer> recordLengths, String inputs, boolean allSeqids) {
         for (Map.Entry<String, List<LabelledInterval>> e : bySeqid.entrySet()) {
             Integer length = recordLengths.get(e.getKey());
             LabelledInterval first = e.getValue().get(0);
+            if (length == null && !allSeqids) {
+                continue;
+            }
             if (length == null) {
                 throw new BadInputException(fileName + ":" + first.line() + ": seqid " + e.getKey()
                         + " is not a record of " + inputs);

@@ -56,14 +56,4 @@ public final class InputFingerprints {
         }
         return new InputFingerprint(name, bytes, HexFormat.of().formatHex(sha.digest()));
     }
-
-    /** SHA-256 of a text's UTF-8 bytes, as lowercase hexadecimal. */
-    public static String sha256(String text) {
-        try {
-            return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256")
-                    .digest(text.getBytes(java.nio.charset.StandardCharsets.UTF_8)));
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException("every Java platform has SHA-256", e);
-        }
-    }
 }

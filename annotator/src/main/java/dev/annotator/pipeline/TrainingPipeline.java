@@ -6,7 +6,6 @@ import dev.annotator.labels.LabelGff3Reader;
 import dev.annotator.model.HmmModel;
 import dev.annotator.model.InputFingerprint;
 import dev.annotator.model.Label;
-import dev.annotator.model.ModelJson;
 import dev.annotator.model.State;
 import dev.annotator.seq.FastaRecordReader;
 import dev.annotator.seq.SequenceRecord;
@@ -14,6 +13,7 @@ import dev.annotator.train.CountSource;
 import dev.annotator.train.ExpectationRunner;
 import dev.annotator.train.IterationProgress;
 import dev.annotator.train.ModelCounts;
+import dev.annotator.train.ModelIdentity;
 import dev.annotator.train.Reestimation;
 import dev.annotator.train.RunStamp;
 import dev.annotator.train.ShardCounts;
@@ -69,7 +69,7 @@ public final class TrainingPipeline {
 
     /** Fits the model; returns it with its provenance filled in. */
     public HmmModel train(IterationProgress progress, RunStamp stamp) {
-        Prepared p = prepare();
+        Prepared p = prepare(true);
         TrainingResult r;
         try (ExpectationRunner runner = new ExpectationRunner(threads)) {
             r = new Trainer(options, progress).train(start, new FileData(p.labels, runner));
@@ -79,25 +79,28 @@ public final class TrainingPipeline {
                 r.logLikelihood(), r.startLogLikelihood(), 0, r.run(), stamp));
     }
 
-    /** One E-step of the start model on the inputs: a shard's counts. */
+    /**
+     * One E-step of the start model on the inputs: a shard's counts. The labels file may also describe records
+     * of other shards.
+     */
     public ShardCounts countShard() {
-        Prepared p = prepare();
+        Prepared p = prepare(false);
         ModelCounts counts;
         try (ExpectationRunner runner = new ExpectationRunner(threads)) {
             counts = new FileData(p.labels, runner).count(start);
         }
-        return new ShardCounts(start.name(), modelSha256(start), options.method(), p.inputs, p.labelFiles, counts);
-    }
-
-    /** SHA-256 of a model's canonical JSON: identifies the exact model an E-step ran with. */
-    public static String modelSha256(HmmModel model) {
-        return InputFingerprints.sha256(ModelJson.toJson(model));
+        return new ShardCounts(start.name(), ModelIdentity.sha256(start), options.method(), p.inputs, p.labelFiles,
+                counts);
     }
 
     private record Prepared(List<InputFingerprint> inputs, List<InputFingerprint> labelFiles, KnownLabels labels) {
     }
 
-    private Prepared prepare() {
+    /**
+     * @param allSeqids whether every labelled seqid must be a record of the inputs; a shard's E-step may be given
+     *                  one labels file for all shards, so it checks only the records it has
+     */
+    private Prepared prepare(boolean allSeqids) {
         if (options.method() == TrainingMethod.COUNTING) {
             requireOneStatePerLabel();
         }
@@ -111,7 +114,7 @@ public final class TrainingPipeline {
         InputFingerprint labelFile = InputFingerprints.of(labelsPath);
         KnownLabels labels = new LabelGff3Reader(start).read(labelsPath, warnings);
         labels.checkAgainst(recordLengths(), inputs.size() == 1 ? inputs.get(0)
-                : "the inputs (" + String.join(", ", inputs) + ")");
+                : "the inputs (" + String.join(", ", inputs) + ")", allSeqids);
         return new Prepared(fingerprints, List.of(labelFile), labels);
     }
 
