@@ -64,6 +64,13 @@ class TrainRecoveryTest {
                 trained.toString(), fasta.toString());
         HmmModel counted = ModelLoader.load(trained.toString());
         assertThat(maxDifference(counted, truth)).isLessThan(0.01);
+
+        // the model records how it was made, and model check prints it
+        CliRun.Result check = CliRun.run("model", "check", trained.toString());
+        assertThat(check.status()).isZero();
+        assertThat(check.out()).contains("trained: counting by annotator ", "  input: " + fasta + ", "
+                + Files.size(fasta) + " bytes, sha256 ", "  labels: " + gff + ", ", "  bases: 4000000\n",
+                "  iterations: 1\n", "  log-likelihood of this model: ");
     }
 
     /** Largest absolute difference over every transition and emission probability. */
