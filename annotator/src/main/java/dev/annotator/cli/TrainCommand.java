@@ -44,11 +44,14 @@ import java.util.concurrent.Callable;
                 "Examples:",
                 "  annotator train -m cpg-island --method counting --labels known.gff3 \\",
                 "      -o counted.json genome.fa.gz",
-                "  annotator train -m cpg-island --method baum-welch --threads 2 -o fitted.json contigs.fa",
+                "  annotator train -m cpg-island --method baum-welch --threads 2 \\",
+                "      -o fitted.json contigs.fa",
                 "  annotator train -m my-model.json --method baum-welch --restarts 4 --seed 7 \\",
                 "      --freeze transitions -o fitted.json a.fa b.fa",
-                "  annotator train -m m0.json --method baum-welch --emit-counts part1.counts.json part1.fa",
-                "  annotator train -m m0.json --merge-counts part1.counts.json part2.counts.json -o m1.json",
+                "  annotator train -m m0.json --method baum-welch --emit-counts p1.counts.json \\",
+                "      part1.fa",
+                "  annotator train -m m0.json --merge-counts p1.counts.json p2.counts.json \\",
+                "      -o m1.json",
                 "",
                 "Progress: one line per iteration on standard error (log-likelihood, gain, seconds).",
                 "",
@@ -196,7 +199,7 @@ final class TrainCommand implements Callable<Integer> {
 
     private int merge() {
         ParseResult parsed = spec.commandLine().getParseResult();
-        for (String notHere : List.of("--labels", "--emit-counts", "--restarts", "--max-iter", "--threads")) {
+        for (String notHere : List.of("--labels", "--emit-counts", "--restarts", "--max-iter")) {
             require(!parsed.hasMatchedOption(notHere), notHere + " does not apply to --merge-counts");
         }
         require(inputs.isEmpty(), "--merge-counts takes count files, not INPUT.fa files");

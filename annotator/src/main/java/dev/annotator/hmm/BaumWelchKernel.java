@@ -112,10 +112,6 @@ public final class BaumWelchKernel {
         this.succProb = parameters.succProb();
     }
 
-    public HmmParameters parameters() {
-        return p;
-    }
-
     /** Zero counts shaped for this kernel's parameters. */
     public ExpectedCounts newCounts() {
         return new ExpectedCounts(p);

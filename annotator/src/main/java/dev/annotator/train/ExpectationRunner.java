@@ -42,7 +42,7 @@ public final class ExpectationRunner implements AutoCloseable {
     }
 
     /** The kernel for a model: label-restricted when {@code labelled}. */
-    public static BaumWelchKernel kernel(HmmModel model, boolean labelled) {
+    private static BaumWelchKernel kernel(HmmModel model, boolean labelled) {
         return new BaumWelchKernel(ModelCompiler.compile(model), labelled ? model.stateLabels() : null,
                 BaumWelchKernel.DEFAULT_BLOCK, BaumWelchKernel.DEFAULT_SPLIT);
     }

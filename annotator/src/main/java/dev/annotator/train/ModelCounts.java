@@ -59,16 +59,6 @@ public final class ModelCounts {
                 folded.records());
     }
 
-    /** Zero counts shaped for a model. */
-    public static ModelCounts zero(HmmModel model) {
-        double[][] emissions = new double[model.stateCount()][];
-        for (int s = 0; s < emissions.length; s++) {
-            emissions[s] = new double[model.states().get(s).emissions().length];
-        }
-        return new ModelCounts(new double[model.stateCount()], new double[model.transitions().size()], emissions,
-                0, 0, 0);
-    }
-
     /** The sum of both (counts of the same model, in the same layout). */
     public ModelCounts plus(ModelCounts o) {
         if (o.start.length != start.length || o.transitions.length != transitions.length) {
