@@ -62,6 +62,8 @@ public final class BaumWelchKernel {
     private final double[][] tables;
     private final int[][] offsets;
     private final int[] contextMasks;
+    private final int[] fullOffset;
+    private final int[] fullMask;
     private final double[] startProb;
     private final int[] predOffset;
     private final int[] predState;
@@ -102,6 +104,12 @@ public final class BaumWelchKernel {
         this.contextMasks = new int[maxOrder + 1];
         for (int j = 0; j <= maxOrder; j++) {
             contextMasks[j] = (1 << (2 * j)) - 1;
+        }
+        this.fullOffset = new int[k];
+        this.fullMask = new int[k];
+        for (int s = 0; s < k; s++) {
+            fullOffset[s] = offsets[s][order[s]];
+            fullMask[s] = contextMasks[order[s]];
         }
         this.startProb = parameters.startArray();
         this.predOffset = parameters.predOffset();
@@ -322,6 +330,15 @@ public final class BaumWelchKernel {
                     e[off + s] = cls < 0 || stateClass[s] == cls ? 1.0 : 0.0;
                     if (idx != null) {
                         idx[off + s] = -1;
+                    }
+                }
+            } else if (clean == maxOrder && cls < 0) {
+                // the common case: every state sees its full context and may emit the base
+                for (int s = 0; s < k; s++) {
+                    int ix = fullOffset[s] + ((context & fullMask[s]) << 2) + code;
+                    e[off + s] = tables[s][ix];
+                    if (idx != null) {
+                        idx[off + s] = ix;
                     }
                 }
             } else {

@@ -9,6 +9,7 @@ import dev.annotator.model.Label;
 import dev.annotator.model.State;
 import dev.annotator.seq.FastaRecordReader;
 import dev.annotator.seq.SequenceRecord;
+import dev.annotator.train.CountItem;
 import dev.annotator.train.CountSource;
 import dev.annotator.train.ExpectationRunner;
 import dev.annotator.train.IterationProgress;
@@ -26,20 +27,24 @@ import dev.annotator.train.TrainingResult;
 import java.io.InputStream;
 import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.Iterator;
 import java.util.List;
 import java.util.Map;
 import java.util.function.Consumer;
 
 /**
  * FASTA files (and a labels file) in, a trained model or one shard's counts out: the library form of
- * {@code annotator train}. The inputs are read once per E-step, one record at a time, so memory does not grow
- * with the amount of data; they must be files, not standard input.
+ * {@code annotator train}. The inputs must be files, not standard input: when they do not fit in memory they are
+ * read again at every E-step, one record at a time, so memory does not grow with the amount of data.
  *
  * <p>Before any counting the run checks what it can: that every input exists (and takes its size and SHA-256),
  * that the labels file is well formed, names only records of the inputs and places every feature inside its
  * record, and, for counting, that every label has one state.
  */
 public final class TrainingPipeline {
+    /** Records are kept in memory between E-steps when they take at most 1/CACHE_SHARE of the maximum heap. */
+    static final int CACHE_SHARE = 4;
+
     private final HmmModel start;
     private final String startName;
     private final List<String> inputs;
@@ -148,10 +153,16 @@ public final class TrainingPipeline {
         }
     }
 
-    /** The inputs as a count source: read from the files at every E-step; warnings on the first read only. */
+    /**
+     * The inputs as a count source. The first E-step reads the files; if the records (and their labels) fit in
+     * {@link #CACHE_SHARE} of the heap they are kept for the later E-steps, otherwise every E-step reads the files
+     * again, one record at a time. Warnings come from the first read only.
+     */
     private final class FileData implements CountSource {
         private final KnownLabels labels;
         private final ExpectationRunner runner;
+        private final long budget = Runtime.getRuntime().maxMemory() / CACHE_SHARE;
+        private List<CountItem> cache;
         private boolean warned;
 
         FileData(KnownLabels labels, ExpectationRunner runner) {
@@ -161,13 +172,22 @@ public final class TrainingPipeline {
 
         @Override
         public ModelCounts count(HmmModel model) {
+            if (cache != null) {
+                return runner.count(model, labels != null, cache.iterator());
+            }
             try (FastaRecords records = records()) {
-                return runner.count(model, labels != null, records);
+                Keeping keeping = new Keeping(records);
+                ModelCounts counts = runner.count(model, labels != null, keeping);
+                cache = keeping.kept();
+                return counts;
             }
         }
 
         @Override
         public double logLikelihood(HmmModel model) {
+            if (cache != null) {
+                return runner.logLikelihood(model, labels != null, cache.iterator());
+            }
             try (FastaRecords records = records()) {
                 return runner.logLikelihood(model, labels != null, records);
             }
@@ -177,6 +197,41 @@ public final class TrainingPipeline {
             Consumer<String> sink = warned ? w -> { } : warnings;
             warned = true;
             return new FastaRecords(inputs, labels, sink);
+        }
+
+        /** Passes the records on and keeps them while they fit in the budget. */
+        private final class Keeping implements Iterator<CountItem> {
+            private final Iterator<CountItem> source;
+            private List<CountItem> kept = new ArrayList<>();
+            private long bytes;
+
+            Keeping(Iterator<CountItem> source) {
+                this.source = source;
+            }
+
+            @Override
+            public boolean hasNext() {
+                return source.hasNext();
+            }
+
+            @Override
+            public CountItem next() {
+                CountItem item = source.next();
+                if (kept != null) {
+                    bytes += item.bases().length * (item.labels() == null ? 1L : 2L);
+                    if (bytes > budget) {
+                        kept = null;
+                    } else {
+                        kept.add(item);
+                    }
+                }
+                return item;
+            }
+
+            /** The records seen, or null when they did not fit. */
+            List<CountItem> kept() {
+                return kept == null ? null : List.copyOf(kept);
+            }
         }
     }
 }
