@@ -52,6 +52,7 @@ public final class TrainingPipeline {
     private final TrainingOptions options;
     private final int threads;
     private final Consumer<String> warnings;
+    private final long cacheBytes;
 
     /**
      * @param start      the model to start from (validated)
@@ -63,6 +64,14 @@ public final class TrainingPipeline {
      */
     public TrainingPipeline(HmmModel start, String startName, List<String> inputs, String labelsPath,
                             TrainingOptions options, int threads, Consumer<String> warnings) {
+        this(start, startName, inputs, labelsPath, options, threads, warnings,
+                Runtime.getRuntime().maxMemory() / CACHE_SHARE);
+    }
+
+    /** As above, keeping records in memory between E-steps only up to {@code cacheBytes}. */
+    TrainingPipeline(HmmModel start, String startName, List<String> inputs, String labelsPath,
+                     TrainingOptions options, int threads, Consumer<String> warnings, long cacheBytes) {
+        this.cacheBytes = cacheBytes;
         this.start = start;
         this.startName = startName;
         this.inputs = List.copyOf(inputs);
@@ -155,13 +164,12 @@ public final class TrainingPipeline {
 
     /**
      * The inputs as a count source. The first E-step reads the files; if the records (and their labels) fit in
-     * {@link #CACHE_SHARE} of the heap they are kept for the later E-steps, otherwise every E-step reads the files
+     * the cache budget (by default 1/{@link #CACHE_SHARE} of the heap) they are kept for the later E-steps, otherwise every E-step reads the files
      * again, one record at a time. Warnings come from the first read only.
      */
     private final class FileData implements CountSource {
         private final KnownLabels labels;
         private final ExpectationRunner runner;
-        private final long budget = Runtime.getRuntime().maxMemory() / CACHE_SHARE;
         private List<CountItem> cache;
         private boolean warned;
 
@@ -219,7 +227,7 @@ public final class TrainingPipeline {
                 CountItem item = source.next();
                 if (kept != null) {
                     bytes += item.bases().length * (item.labels() == null ? 1L : 2L);
-                    if (bytes > budget) {
+                    if (bytes > cacheBytes) {
                         kept = null;
                     } else {
                         kept.add(item);
