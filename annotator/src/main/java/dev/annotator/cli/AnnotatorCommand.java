@@ -11,7 +11,7 @@ import picocli.CommandLine.ScopeType;
         description = {
                 "Annotates DNA with hidden Markov models: reads FASTA, decodes each record with a model "
                         + "(posterior or Viterbi), and writes GFF3 segments with per-segment confidence."},
-        subcommands = {AnnotateCommand.class, SimulateCommand.class, ModelCommand.class, ModelsCommand.class,
+        subcommands = {AnnotateCommand.class, SimulateCommand.class, TrainCommand.class, ModelCommand.class, ModelsCommand.class,
                 DemoCommand.class},
         footerHeading = "%n",
         footer = {

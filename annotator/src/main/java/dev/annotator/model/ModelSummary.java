@@ -19,6 +19,10 @@ public final class ModelSummary {
         for (String note : model.provenance().notes()) {
             out.append("  note: ").append(note).append('\n');
         }
+        Training training = model.provenance().training();
+        if (training != null) {
+            training(training, out);
+        }
 
         out.append("labels: ").append(model.labels().size()).append('\n');
         List<String[]> rows = new ArrayList<>();
@@ -67,6 +71,34 @@ public final class ModelSummary {
      */
     public static Map<String, Double> expectedSegmentLengths(HmmModel model) {
         return SegmentLengths.compute(model);
+    }
+
+    private static void training(Training t, StringBuilder out) {
+        out.append("trained: ").append(t.method()).append(" by ").append(t.tool()).append(" on ").append(t.date())
+                .append('\n');
+        out.append("  command: ").append(t.command()).append('\n');
+        for (InputFingerprint f : t.inputs()) {
+            out.append("  input: ").append(f.name()).append(", ").append(f.bytes()).append(" bytes, sha256 ")
+                    .append(f.sha256()).append('\n');
+        }
+        for (InputFingerprint f : t.labels()) {
+            out.append("  labels: ").append(f.name()).append(", ").append(f.bytes()).append(" bytes, sha256 ")
+                    .append(f.sha256()).append('\n');
+        }
+        out.append("  bases: ").append(t.bases()).append('\n');
+        out.append("  iterations: ").append(t.iterations());
+        if (t.converged() != null) {
+            out.append(t.converged() ? " (converged)" : " (stopped before converging)");
+        }
+        out.append('\n');
+        if (t.startLogLikelihood() != null) {
+            out.append("  log-likelihood of the start model: ").append(Numbers.logLikelihood(t.startLogLikelihood()))
+                    .append('\n');
+        }
+        if (t.logLikelihood() != null) {
+            out.append("  log-likelihood of this model: ").append(Numbers.logLikelihood(t.logLikelihood()))
+                    .append('\n');
+        }
     }
 
     private static String length(double v) {

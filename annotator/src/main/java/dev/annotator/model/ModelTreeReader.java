@@ -17,7 +17,12 @@ import java.util.Map;
 final class ModelTreeReader {
     private static final List<String> TOP = List.of("format", "name", "description", "provenance", "labels", "states",
             "start", "transitions");
-    private static final List<String> PROVENANCE = List.of("source", "notes");
+    private static final List<String> PROVENANCE = List.of("source", "notes", "training");
+    private static final List<String> TRAINING = List.of("tool", "command", "date", "method", "inputs", "labels",
+            "bases", "iterations", "converged", "log_likelihood", "start_log_likelihood");
+    private static final List<String> TRAINING_REQUIRED = List.of("tool", "command", "date", "method", "inputs",
+            "bases", "iterations");
+    private static final List<String> FINGERPRINT = List.of("name", "bytes", "sha256");
     private static final List<String> LABEL = List.of("name", "feature_type", "so_accession", "background",
             "composition");
     private static final List<String> STATE = List.of("name", "label", "order", "emissions");
@@ -86,7 +91,37 @@ final class ModelTreeReader {
                 notes.add(n.textValue());
             }
         }
-        return new Provenance(source, notes);
+        Training training = node.has("training") ? training(node.get("training"), path + ".training") : null;
+        return new Provenance(source, notes, training);
+    }
+
+    private Training training(JsonNode node, String path) {
+        requireObject(node, path);
+        requireFields(node, path, TRAINING, TRAINING_REQUIRED);
+        List<InputFingerprint> labels = node.has("labels") ? fingerprints(node, "labels", path) : List.of();
+        Boolean converged = node.has("converged") ? flag(node, "converged", path) : null;
+        Double logLik = node.has("log_likelihood") ? number(node.get("log_likelihood"), path + ".log_likelihood")
+                : null;
+        Double startLogLik = node.has("start_log_likelihood")
+                ? number(node.get("start_log_likelihood"), path + ".start_log_likelihood") : null;
+        return new Training(text(node, "tool", path), text(node, "command", path), text(node, "date", path),
+                text(node, "method", path), fingerprints(node, "inputs", path), labels,
+                integer(node.get("bases"), path + ".bases"), (int) Math.min(Integer.MAX_VALUE,
+                integer(node.get("iterations"), path + ".iterations")), converged, logLik, startLogLik);
+    }
+
+    private List<InputFingerprint> fingerprints(JsonNode parent, String field, String path) {
+        JsonNode arr = array(parent, field, path);
+        List<InputFingerprint> out = new ArrayList<>();
+        for (int i = 0; i < arr.size(); i++) {
+            String at = join(path, field) + "[" + i + "]";
+            JsonNode n = arr.get(i);
+            requireObject(n, at);
+            requireFields(n, at, FINGERPRINT, FINGERPRINT);
+            out.add(new InputFingerprint(text(n, "name", at), integer(n.get("bytes"), at + ".bytes"),
+                    text(n, "sha256", at)));
+        }
+        return out;
     }
 
     private Label label(JsonNode node, String path) {
@@ -238,6 +273,13 @@ final class ModelTreeReader {
             throw wrongType(path, "a number", n);
         }
         return n.doubleValue();
+    }
+
+    private long integer(JsonNode n, String path) {
+        if (!n.isIntegralNumber() || !n.canConvertToLong()) {
+            throw wrongType(path, "an integer", n);
+        }
+        return n.longValue();
     }
 
     private BadInputException wrongType(String path, String expected, JsonNode found) {

@@ -21,6 +21,29 @@ final class ModelTreeWriter {
         provenance.put("source", model.provenance().source());
         ArrayNode notes = provenance.putArray("notes");
         model.provenance().notes().forEach(notes::add);
+        Training training = model.provenance().training();
+        if (training != null) {
+            ObjectNode t = provenance.putObject("training");
+            t.put("tool", training.tool());
+            t.put("command", training.command());
+            t.put("date", training.date());
+            t.put("method", training.method());
+            fingerprints(t.putArray("inputs"), training.inputs());
+            if (!training.labels().isEmpty()) {
+                fingerprints(t.putArray("labels"), training.labels());
+            }
+            t.put("bases", training.bases());
+            t.put("iterations", training.iterations());
+            if (training.converged() != null) {
+                t.put("converged", training.converged());
+            }
+            if (training.logLikelihood() != null) {
+                t.put("log_likelihood", training.logLikelihood());
+            }
+            if (training.startLogLikelihood() != null) {
+                t.put("start_log_likelihood", training.startLogLikelihood());
+            }
+        }
 
         ArrayNode labels = root.putArray("labels");
         for (Label l : model.labels()) {
@@ -73,5 +96,14 @@ final class ModelTreeWriter {
             n.put("p", t.probability());
         }
         return root;
+    }
+
+    private static void fingerprints(ArrayNode array, java.util.List<InputFingerprint> files) {
+        for (InputFingerprint f : files) {
+            ObjectNode n = array.addObject();
+            n.put("name", f.name());
+            n.put("bytes", f.bytes());
+            n.put("sha256", f.sha256());
+        }
     }
 }

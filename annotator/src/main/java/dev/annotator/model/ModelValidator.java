@@ -28,6 +28,7 @@ public final class ModelValidator {
     public static final double SUM_TOLERANCE = 1e-6;
 
     private static final Pattern SO_ACCESSION = Pattern.compile("SO:\\d{7}");
+    private static final Pattern SHA256 = Pattern.compile("[0-9a-f]{64}");
 
     private final String file;
     private final HmmModel model;
@@ -65,6 +66,53 @@ public final class ModelValidator {
         for (int i = 0; i < p.notes().size(); i++) {
             if (!isOneLine(p.notes().get(i))) {
                 throw fail("provenance.notes[" + i + "] must be one line of text");
+            }
+        }
+        if (p.training() != null) {
+            checkTraining(p.training());
+        }
+    }
+
+    private void checkTraining(Training t) {
+        String at = "provenance.training.";
+        String[][] texts = {{"tool", t.tool()}, {"command", t.command()}, {"date", t.date()}};
+        for (String[] field : texts) {
+            if (field[1] == null || field[1].isEmpty() || !isOneLine(field[1])) {
+                throw fail(at + field[0] + " must be one line of text");
+            }
+        }
+        if (!Training.COUNTING.equals(t.method()) && !Training.BAUM_WELCH.equals(t.method())) {
+            throw fail(at + "method " + quote(t.method()) + " is not \"" + Training.COUNTING + "\" or \""
+                    + Training.BAUM_WELCH + "\"");
+        }
+        checkFingerprints(t.inputs(), at + "inputs");
+        checkFingerprints(t.labels(), at + "labels");
+        if (t.bases() < 0) {
+            throw fail(at + "bases must not be negative");
+        }
+        if (t.iterations() < 0) {
+            throw fail(at + "iterations must not be negative");
+        }
+        if (t.logLikelihood() != null && !Double.isFinite(t.logLikelihood())) {
+            throw fail(at + "log_likelihood must be a finite number");
+        }
+        if (t.startLogLikelihood() != null && !Double.isFinite(t.startLogLikelihood())) {
+            throw fail(at + "start_log_likelihood must be a finite number");
+        }
+    }
+
+    private void checkFingerprints(List<InputFingerprint> files, String at) {
+        for (int i = 0; i < files.size(); i++) {
+            InputFingerprint f = files.get(i);
+            String where = at + "[" + i + "]";
+            if (f.name() == null || f.name().isEmpty() || !isOneLine(f.name())) {
+                throw fail(where + ".name must be one line of text");
+            }
+            if (f.bytes() < 0) {
+                throw fail(where + ".bytes must not be negative");
+            }
+            if (f.sha256() == null || !SHA256.matcher(f.sha256()).matches()) {
+                throw fail(where + ".sha256 " + quote(f.sha256()) + " is not 64 lowercase hexadecimal digits");
             }
         }
     }

@@ -20,4 +20,9 @@ final class Numbers {
         double mag = Math.abs(x);
         return mag >= 1e-6 && mag < 1e12 ? d.toPlainString() : d.toString();
     }
+
+    /** A natural log-likelihood with six decimals, the way progress lines print it. */
+    static String logLikelihood(double x) {
+        return String.format(java.util.Locale.ROOT, "%.6f", x);
+    }
 }

@@ -1,0 +1,59 @@
+package dev.annotator.pipeline;
+
+import dev.annotator.error.IoFailureException;
+import dev.annotator.error.MissingInputException;
+import dev.annotator.model.InputFingerprint;
+
+import java.io.IOException;
+import java.io.InputStream;
+import java.nio.file.AccessDeniedException;
+import java.nio.file.Files;
+import java.nio.file.InvalidPathException;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.util.HexFormat;
+
+/** Size and SHA-256 of an input file as stored (compressed or not), for a trained model's provenance. */
+public final class InputFingerprints {
+    private InputFingerprints() {
+    }
+
+    /**
+     * @throws MissingInputException the file does not exist or cannot be read
+     */
+    public static InputFingerprint of(String name) {
+        Path path;
+        try {
+            path = Path.of(name);
+        } catch (InvalidPathException e) {
+            throw new MissingInputException(name + ": no such file");
+        }
+        if (Files.isDirectory(path)) {
+            throw new MissingInputException(name + ": is a directory");
+        }
+        MessageDigest sha;
+        try {
+            sha = MessageDigest.getInstance("SHA-256");
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException("every Java platform has SHA-256", e);
+        }
+        long bytes = 0;
+        byte[] buf = new byte[1 << 16];
+        try (InputStream in = Files.newInputStream(path)) {
+            int n;
+            while ((n = in.read(buf)) > 0) {
+                sha.update(buf, 0, n);
+                bytes += n;
+            }
+        } catch (NoSuchFileException e) {
+            throw new MissingInputException(name + ": no such file");
+        } catch (AccessDeniedException e) {
+            throw new MissingInputException(name + ": cannot be read (permission denied)");
+        } catch (IOException e) {
+            throw new IoFailureException(name + ": read failed: " + e.getMessage(), e);
+        }
+        return new InputFingerprint(name, bytes, HexFormat.of().formatHex(sha.digest()));
+    }
+}
