@@ -1,5 +1,7 @@
 package dev.annotator.bench;
 
+import dev.annotator.hmm.BaumWelchKernel;
+import dev.annotator.hmm.ExpectedCounts;
 import dev.annotator.hmm.ForwardBackward;
 import dev.annotator.hmm.HmmParameters;
 import dev.annotator.hmm.PosteriorBlockSink;
@@ -23,7 +25,8 @@ import java.util.SplittableRandom;
 import java.util.concurrent.TimeUnit;
 
 /**
- * Kernel throughput per topology on 1 Mbp of random sequence (each benchmark in its own JVM fork). The score is
+ * Kernel throughput per topology (forward, forward-backward with posteriors, Viterbi, Baum-Welch expected counts)
+ * on 1 Mbp of random sequence (each benchmark in its own JVM fork). The score is
  * milliseconds per 1 Mbp: Mbp/s = 1000 / score.
  *
  * <p>Topologies: {@code island} is the shipped two-state first-order model; {@code dense3} a three-state
@@ -45,6 +48,7 @@ public class KernelBenchmark {
     private byte[] sequence;
     private ForwardBackward forwardBackward;
     private Viterbi viterbi;
+    private BaumWelchKernel baumWelch;
 
     @Setup
     public void setUp() {
@@ -56,6 +60,7 @@ public class KernelBenchmark {
         };
         forwardBackward = new ForwardBackward(p);
         viterbi = new Viterbi(p);
+        baumWelch = new BaumWelchKernel(p);
         SplittableRandom rng = new SplittableRandom(1);
         sequence = new byte[LENGTH];
         for (int i = 0; i < LENGTH; i++) {
@@ -78,6 +83,16 @@ public class KernelBenchmark {
     @Benchmark
     public double viterbi() {
         return viterbi.decode(sequence).logProbability();
+    }
+
+    /** One Baum-Welch E-step: expected start, transition and emission counts (one thread, no fork). */
+    @Benchmark
+    public ExpectedCounts expectedCounts() {
+        ExpectedCounts head = baumWelch.newCounts();
+        ExpectedCounts tail = baumWelch.newCounts();
+        baumWelch.accumulate(sequence, null, head, tail, false);
+        head.add(tail);
+        return head;
     }
 
     /** States, each with a self-loop and links to {@code fanOut - 1} others; orders 0..maxOrder. */

@@ -85,7 +85,7 @@ class BadInputCorpusTest {
         // the hardening issue asks for a corpus of at least 40 bad inputs
         assertThat(listed).hasSizeGreaterThanOrEqualTo(40);
         assertThat(rows()).allSatisfy(r -> {
-            assertThat(r.usedAs()).isIn("FASTA", "model");
+            assertThat(r.usedAs()).isIn("FASTA", "model", "labels");
             assertThat(r.what()).isNotBlank();
             assertThat(r.message()).isNotBlank();
         });
@@ -99,6 +99,11 @@ class BadInputCorpusTest {
         String out = outDir.resolve("calls.gff3").toString();
         if (row.usedAs().equals("FASTA")) {
             assertFails(row, file, CliRun.run("annotate", "-m", "cpg-island", "-o", out, file.toString()));
+        } else if (row.usedAs().equals("labels")) {
+            // known features for training by counting, against the two-record fixture
+            assertFails(row, file, CliRun.run("train", "-m", "cpg-island", "--method", "counting", "--labels",
+                    file.toString(), "-o", outDir.resolve("trained.json").toString(),
+                    CliRun.testData("fasta", "two-records.fa").toString()));
         } else {
             assertFails(row, file, CliRun.run("annotate", "-m", file.toString(), "-o", out,
                     CliRun.testData("fasta", "two-records.fa").toString()));
