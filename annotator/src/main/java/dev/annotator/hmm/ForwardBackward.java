@@ -40,6 +40,14 @@ public final class ForwardBackward {
     private final double a01;
     private final double a10;
     private final double a11;
+    // transitions padded to a fixed fan-in/fan-out of PAD when no state has more (a zero-probability slot points at
+    // state 0), so the sparse path runs without an inner loop of a few iterations per state
+    private static final int PAD = 4;
+    private final boolean padded;
+    private final int[] padPred;
+    private final double[] padPredProb;
+    private final int[] padSucc;
+    private final double[] padSuccProb;
 
     public ForwardBackward(HmmParameters parameters) {
         this(parameters, DEFAULT_BLOCK);
@@ -59,6 +67,30 @@ public final class ForwardBackward {
         this.a01 = twoStates ? parameters.transition(0, 1) : 0;
         this.a10 = twoStates ? parameters.transition(1, 0) : 0;
         this.a11 = twoStates ? parameters.transition(1, 1) : 0;
+        int maxFan = 0;
+        for (int s = 0; s < k; s++) {
+            maxFan = Math.max(maxFan, parameters.predOffset()[s + 1] - parameters.predOffset()[s]);
+            maxFan = Math.max(maxFan, parameters.succOffset()[s + 1] - parameters.succOffset()[s]);
+        }
+        this.padded = !twoStates && maxFan <= PAD;
+        this.padPred = new int[padded ? k * PAD : 0];
+        this.padPredProb = new double[padPred.length];
+        this.padSucc = new int[padPred.length];
+        this.padSuccProb = new double[padPred.length];
+        if (padded) {
+            for (int s = 0; s < k; s++) {
+                int slot = 0;
+                for (int q = parameters.predOffset()[s]; q < parameters.predOffset()[s + 1]; q++, slot++) {
+                    padPred[s * PAD + slot] = parameters.predState()[q];
+                    padPredProb[s * PAD + slot] = parameters.predProb()[q];
+                }
+                slot = 0;
+                for (int q = parameters.succOffset()[s]; q < parameters.succOffset()[s + 1]; q++, slot++) {
+                    padSucc[s * PAD + slot] = parameters.succState()[q];
+                    padSuccProb[s * PAD + slot] = parameters.succProb()[q];
+                }
+            }
+        }
     }
 
     public int blockSize() {
@@ -323,14 +355,26 @@ public final class ForwardBackward {
             } else {
                 double[] src = i == 0 ? prev : alpha;
                 int srcOff = i == 0 ? 0 : off - k;
-                for (int j = 0; j < k; j++) {
-                    double s = 0;
-                    for (int q = predOffset[j]; q < predOffset[j + 1]; q++) {
-                        s += src[srcOff + predState[q]] * predProb[q];
+                if (padded) {
+                    final int[] pp = padPred;
+                    final double[] pw = padPredProb;
+                    for (int j = 0, b = 0; j < k; j++, b += PAD) {
+                        double s = src[srcOff + pp[b]] * pw[b] + src[srcOff + pp[b + 1]] * pw[b + 1]
+                                + src[srcOff + pp[b + 2]] * pw[b + 2] + src[srcOff + pp[b + 3]] * pw[b + 3];
+                        double v = s * e[y + j];
+                        alpha[off + j] = v;
+                        sum += v;
                     }
-                    double v = s * e[y + j];
-                    alpha[off + j] = v;
-                    sum += v;
+                } else {
+                    for (int j = 0; j < k; j++) {
+                        double s = 0;
+                        for (int q = predOffset[j]; q < predOffset[j + 1]; q++) {
+                            s += src[srcOff + predState[q]] * predProb[q];
+                        }
+                        double v = s * e[y + j];
+                        alpha[off + j] = v;
+                        sum += v;
+                    }
                 }
             }
             if (sum < RESCALE_BELOW) {
@@ -411,13 +455,24 @@ public final class ForwardBackward {
                     weighted[j] = e[y + j] * beta[j];
                 }
                 double sum = 0;
-                for (int s = 0; s < k; s++) {
-                    double v = 0;
-                    for (int q = succOffset[s]; q < succOffset[s + 1]; q++) {
-                        v += succProb[q] * weighted[succState[q]];
+                if (padded) {
+                    final int[] ps = padSucc;
+                    final double[] pw = padSuccProb;
+                    for (int s = 0, b = 0; s < k; s++, b += PAD) {
+                        double v = pw[b] * weighted[ps[b]] + pw[b + 1] * weighted[ps[b + 1]]
+                                + pw[b + 2] * weighted[ps[b + 2]] + pw[b + 3] * weighted[ps[b + 3]];
+                        beta[s] = v;
+                        sum += v;
                     }
-                    beta[s] = v;
-                    sum += v;
+                } else {
+                    for (int s = 0; s < k; s++) {
+                        double v = 0;
+                        for (int q = succOffset[s]; q < succOffset[s + 1]; q++) {
+                            v += succProb[q] * weighted[succState[q]];
+                        }
+                        beta[s] = v;
+                        sum += v;
+                    }
                 }
                 if (sum < RESCALE_BELOW) {
                     for (int s = 0; s < k; s++) {
