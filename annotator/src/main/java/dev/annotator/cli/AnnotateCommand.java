@@ -1,6 +1,7 @@
 package dev.annotator.cli;
 
 import dev.annotator.decode.DecodeMethod;
+import dev.annotator.decode.ProfileOptions;
 import dev.annotator.error.IoFailureException;
 import dev.annotator.model.HmmModel;
 import dev.annotator.model.ModelLoader;
@@ -18,7 +19,7 @@ import picocli.CommandLine.Model.CommandSpec;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.util.Collections;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
@@ -74,6 +75,12 @@ final class AnnotateCommand implements Callable<Integer> {
                     + "genome can be concatenated with unique IDs.")
     String idPrefix;
 
+    @Option(names = "--summary", paramLabel = "OUT.tsv",
+            description = "Also write one tab-separated row per record (length, GC, CpG o/e, N fraction, and per "
+                    + "label segments, bases covered, longest segment, mean and lowest confidence, log-odds in bits "
+                    + "per base).")
+    String summary;
+
     @Option(names = {"-q", "--quiet"}, description = "Print nothing on standard error except errors and warnings.")
     boolean quiet;
 
@@ -110,21 +117,32 @@ final class AnnotateCommand implements Callable<Integer> {
         if (minLength < 0) {
             throw new ParameterException(spec.commandLine(), "--min-length must not be negative, got " + minLength);
         }
-        OutputTarget.refuseBeforeRun(List.of(input, model), Collections.singletonList(output), force);
+        for (String side : Arrays.asList(summary)) {
+            if ("-".equals(side)) {
+                throw new ParameterException(spec.commandLine(),
+                        "only the GFF3 can go to standard output; name a file for the other outputs");
+            }
+        }
+        OutputTarget.refuseBeforeRun(List.of(input, model), Arrays.asList(output, summary), force);
         ProgressReporter reporter = reporter(parent.streams().err());
         HmmModel hmm = ModelLoader.load(model);
         PrintWriter err = parent.streams().err();
-        AnnotationPipeline pipeline = new AnnotationPipeline(hmm, new AnnotationOptions(decode, minLength, n, idPrefix));
-        RunSummary summary;
-        try (OutputTarget out = OutputTarget.open(output, parent.streams().out(), force)) {
-            summary = pipeline.run(input, parent.streams().in(), out.writer(), out.name(),
-                    w -> err.println("annotator: warning: " + w), a -> { }, reporter);
+        ProfileOptions profile = new ProfileOptions(null, 1, false, summary != null, 0);
+        AnnotationPipeline pipeline = new AnnotationPipeline(hmm,
+                new AnnotationOptions(decode, minLength, n, idPrefix, profile));
+        RunSummary run;
+        try (OutputTarget out = OutputTarget.open(output, parent.streams().out(), force);
+             SideOutputs side = SideOutputs.open(hmm, summary, force)) {
+            run = pipeline.run(input, parent.streams().in(), out.writer(), out.name(),
+                    w -> err.println("annotator: warning: " + w), side::record, reporter);
+            side.commit();
             try {
                 out.commit();
             } catch (IOException e) {
                 throw new IoFailureException(out.name() + ": write failed (" + e.getMessage() + ")", e);
             }
         }
+        RunSummary summary = run;
         if (!quiet) {
             err.println(String.format(Locale.ROOT, "annotator: %d record(s), %.3f Mbp, %d segment(s) in %.2f s (%.1f Mbp/s)",
                     summary.records(), summary.bases() / 1e6, summary.segments(), summary.seconds(),

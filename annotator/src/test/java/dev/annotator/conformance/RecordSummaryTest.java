@@ -1,0 +1,132 @@
+package dev.annotator.conformance;
+
+import dev.annotator.cli.Main;
+import dev.annotator.model.HmmModel;
+import dev.annotator.model.ModelLoader;
+import dev.annotator.pipeline.SimulationRun;
+import dev.annotator.seq.FastaWriter;
+import dev.annotator.seq.SequenceRecord;
+import dev.annotator.simulate.SimulatedRecord;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.TestInstance;
+import org.junit.jupiter.api.io.TempDir;
+
+import java.io.ByteArrayInputStream;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.OutputStream;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Map;
+
+import static org.assertj.core.api.Assertions.assertThat;
+import static org.assertj.core.api.Assertions.within;
+
+/**
+ * {@code annotate --summary}: every number of a row recomputed here from the FASTA file (read apart from the
+ * project's reader) and from the GFF3 written in the same run (read by {@link StrictGff3Reader}).
+ */
+@TestInstance(TestInstance.Lifecycle.PER_CLASS)
+class RecordSummaryTest {
+    private Path dir;
+    private HmmModel model;
+    private Map<String, byte[]> bases;
+    private List<ParsedFeature> calls;
+    private List<String[]> rows;
+
+    @BeforeAll
+    void annotate(@TempDir Path tmp) throws IOException {
+        dir = tmp;
+        model = ModelLoader.load("cpg-island");
+        List<SimulatedRecord> sampled = new SimulationRun(model)
+                .sample(List.of("r1", "r2", "tiny"), new int[]{80_000, 30_000, 150}, 99L);
+        List<SequenceRecord> records = new ArrayList<>();
+        for (SimulatedRecord s : sampled) {
+            byte[] b = s.record().bases().clone();
+            if (s.record().name().equals("r1")) {
+                Arrays.fill(b, 10_000, 12_500, (byte) 'N'); // an assembly gap
+                b[40_000] = 'R';
+            }
+            records.add(new SequenceRecord(s.record().name(), "", b));
+        }
+        Path fasta = dir.resolve("in.fa");
+        try (OutputStream out = Files.newOutputStream(fasta)) {
+            FastaWriter w = new FastaWriter(out);
+            for (SequenceRecord r : records) {
+                w.write(r);
+            }
+            w.flush();
+        }
+        Path gff = dir.resolve("out.gff3");
+        Path tsv = dir.resolve("summary.tsv");
+        ByteArrayOutputStream err = new ByteArrayOutputStream();
+        int status = Main.run(new String[]{"annotate", "-m", "cpg-island", "-q", "--threads", "2", "-o", gff.toString(),
+                "--summary", tsv.toString(), fasta.toString()}, new ByteArrayInputStream(new byte[0]),
+                new ByteArrayOutputStream(), new PrintStream(err, true, StandardCharsets.UTF_8));
+        assertThat(status).as(err.toString(StandardCharsets.UTF_8)).isZero();
+        bases = PlainFasta.read(fasta);
+        calls = StrictGff3Reader.read(gff).features();
+        rows = Files.readAllLines(tsv).stream().map(l -> l.split("\t", -1)).toList();
+    }
+
+    @Test
+    void headerThenOneRowPerRecordInInputOrder() {
+        assertThat(rows.get(0)).containsExactly("seqid", "length", "gc", "cpg_oe", "n_fraction", "island_segments",
+                "island_bases", "island_longest", "island_mean_confidence", "island_min_confidence",
+                "island_log_odds_bits_per_base");
+        assertThat(rows.subList(1, rows.size()).stream().map(r -> r[0])).containsExactly("r1", "r2", "tiny");
+        assertThat(rows).allSatisfy(r -> assertThat(r).hasSize(11));
+    }
+
+    @Test
+    void compositionMatchesTheBasesCountedHere() {
+        for (String[] row : rows.subList(1, rows.size())) {
+            byte[] b = bases.get(row[0]);
+            BaseCounts counts = BaseCounts.of(b, 1, b.length);
+            assertThat(Integer.parseInt(row[1])).isEqualTo(b.length);
+            // GC fraction and o/e as defined by Gardiner-Garden & Frommer (1987), over unambiguous bases
+            assertThat(Double.parseDouble(row[2])).isCloseTo(counts.gc(), within(0.5e-4));
+            assertThat(Double.parseDouble(row[3])).isCloseTo(counts.cpgObservedExpected(), within(0.5e-4));
+            assertThat(Double.parseDouble(row[4])).isCloseTo((double) counts.ambiguous() / b.length, within(0.5e-4));
+        }
+        assertThat(Double.parseDouble(rows.get(1)[4])).isGreaterThan(0.03); // the 2.5 kb gap in 80 kb
+    }
+
+    @Test
+    void segmentColumnsMatchTheGff3OfTheSameRun() {
+        for (String[] row : rows.subList(1, rows.size())) {
+            List<ParsedFeature> mine = calls.stream().filter(f -> f.seqid().equals(row[0])).toList();
+            assertThat(Integer.parseInt(row[5])).isEqualTo(mine.size());
+            assertThat(Long.parseLong(row[6])).isEqualTo(mine.stream().mapToLong(ParsedFeature::length).sum());
+            assertThat(Long.parseLong(row[7])).isEqualTo(mine.stream().mapToLong(ParsedFeature::length).max().orElse(0));
+            if (mine.isEmpty()) {
+                assertThat(row[8]).isEqualTo("NA");
+                assertThat(row[9]).isEqualTo("NA");
+            } else {
+                // GFF3 scores carry 3 decimals, so their mean may differ from the unrounded one by half a unit
+                assertThat(Double.parseDouble(row[8])).isCloseTo(
+                        mine.stream().mapToDouble(ParsedFeature::score).average().orElseThrow(), within(1.01e-3));
+                assertThat(row[9]).isEqualTo(String.format(java.util.Locale.ROOT, "%.3f",
+                        mine.stream().mapToDouble(ParsedFeature::score).min().orElseThrow()));
+            }
+        }
+        assertThat(Integer.parseInt(rows.get(1)[5])).isPositive();
+    }
+
+    @Test
+    void logOddsPerBaseIsTheTwoChainScoreOfTheWholeRecord() {
+        TwoChainLogOdds chains = new TwoChainLogOdds(model.states().get(model.stateIndex("island")),
+                model.states().get(model.stateIndex("background")));
+        for (String[] row : rows.subList(1, rows.size())) {
+            byte[] b = bases.get(row[0]);
+            double expected = chains.bits(b, 1, b.length) / b.length;
+            assertThat(Double.parseDouble(row[10])).isCloseTo(expected, within(0.5e-4 + 1e-9));
+        }
+    }
+}
