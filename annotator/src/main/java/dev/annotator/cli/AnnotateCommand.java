@@ -81,6 +81,20 @@ final class AnnotateCommand implements Callable<Integer> {
                     + "per base).")
     String summary;
 
+    @Option(names = "--posterior-track", paramLabel = "OUT.bedgraph",
+            description = "Also write the posterior of one label along every record as a bedGraph track "
+                    + "(gzipped when the name ends in .gz).")
+    String posteriorTrack;
+
+    @Option(names = "--track-label", paramLabel = "LABEL",
+            description = "The label the track and the report's plots follow (default: the model's first reported label).")
+    String trackLabel;
+
+    @Option(names = "--track-step", paramLabel = "BP", defaultValue = "1",
+            description = "1 (default): per-base values, neighbours equal at 3 decimals merged; larger: the mean "
+                    + "posterior of each BP-base bin.")
+    int trackStep;
+
     @Option(names = {"-q", "--quiet"}, description = "Print nothing on standard error except errors and warnings.")
     boolean quiet;
 
@@ -117,22 +131,31 @@ final class AnnotateCommand implements Callable<Integer> {
         if (minLength < 0) {
             throw new ParameterException(spec.commandLine(), "--min-length must not be negative, got " + minLength);
         }
-        for (String side : Arrays.asList(summary)) {
+        for (String side : Arrays.asList(summary, posteriorTrack)) {
             if ("-".equals(side)) {
                 throw new ParameterException(spec.commandLine(),
                         "only the GFF3 can go to standard output; name a file for the other outputs");
             }
         }
-        OutputTarget.refuseBeforeRun(List.of(input, model), Arrays.asList(output, summary), force);
+        OutputTarget.refuseBeforeRun(List.of(input, model), Arrays.asList(output, summary, posteriorTrack), force);
+        if (trackStep < 1) {
+            throw new ParameterException(spec.commandLine(), "--track-step must be at least 1, got " + trackStep);
+        }
         ProgressReporter reporter = reporter(parent.streams().err());
         HmmModel hmm = ModelLoader.load(model);
         PrintWriter err = parent.streams().err();
-        ProfileOptions profile = new ProfileOptions(null, 1, false, summary != null, 0);
+        List<String> reported = hmm.reportedLabels().stream().map(dev.annotator.model.Label::name).toList();
+        if (trackLabel != null && !reported.contains(trackLabel)) {
+            throw new ParameterException(spec.commandLine(), "--track-label " + trackLabel
+                    + " is not a reported label of model " + hmm.name() + " (reported: " + String.join(", ", reported) + ")");
+        }
+        String label = trackLabel == null ? reported.get(0) : trackLabel;
+        ProfileOptions profile = new ProfileOptions(label, trackStep, posteriorTrack != null, summary != null, 0);
         AnnotationPipeline pipeline = new AnnotationPipeline(hmm,
                 new AnnotationOptions(decode, minLength, n, idPrefix, profile));
         RunSummary run;
         try (OutputTarget out = OutputTarget.open(output, parent.streams().out(), force);
-             SideOutputs side = SideOutputs.open(hmm, summary, force)) {
+             SideOutputs side = SideOutputs.open(hmm, summary, posteriorTrack, label, trackStep, force)) {
             run = pipeline.run(input, parent.streams().in(), out.writer(), out.name(),
                     w -> err.println("annotator: warning: " + w), side::record, reporter);
             side.commit();

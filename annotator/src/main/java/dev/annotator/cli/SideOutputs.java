@@ -5,7 +5,15 @@ import dev.annotator.error.IoFailureException;
 import dev.annotator.gff.RecordSummaryWriter;
 import dev.annotator.model.HmmModel;
 
+import dev.annotator.gff.BedGraphWriter;
+
+import java.io.BufferedWriter;
 import java.io.IOException;
+import java.io.OutputStream;
+import java.io.OutputStreamWriter;
+import java.io.Writer;
+import java.nio.charset.StandardCharsets;
+import java.util.zip.GZIPOutputStream;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -17,14 +25,36 @@ final class SideOutputs implements AutoCloseable {
     private final List<OutputTarget> targets = new ArrayList<>();
     private OutputTarget summaryTarget;
     private RecordSummaryWriter summary;
+    private OutputTarget trackTarget;
+    private Writer trackText;
+    private GZIPOutputStream trackGzip;
+    private BedGraphWriter track;
 
     private SideOutputs() {
     }
 
-    /** @param summaryPath the summary table's path, or null for none */
-    static SideOutputs open(HmmModel model, String summaryPath, boolean force) throws IOException {
+    /**
+     * @param summaryPath the summary table's path, or null for none
+     * @param trackPath   the bedGraph's path (gzipped when it ends in .gz), or null for none
+     * @param trackLabel  the label the track follows
+     */
+    static SideOutputs open(HmmModel model, String summaryPath, String trackPath, String trackLabel, int trackStep,
+                            boolean force) throws IOException {
         SideOutputs s = new SideOutputs();
         try {
+            if (trackPath != null) {
+                s.trackTarget = s.add(OutputTarget.open(trackPath, null, force));
+                OutputStream raw = s.trackTarget.stream();
+                if (trackPath.endsWith(".gz")) {
+                    s.trackGzip = new GZIPOutputStream(raw, 1 << 16);
+                    raw = s.trackGzip;
+                }
+                s.trackText = new BufferedWriter(new OutputStreamWriter(raw, StandardCharsets.UTF_8), 1 << 16);
+                s.track = new BedGraphWriter(s.trackText);
+                s.track.writeTrackLine(model.name() + " " + trackLabel + " posterior",
+                        "posterior probability of " + trackLabel + (trackStep > 1 ? ", mean per " + trackStep + " bp" : "")
+                                + " (annotator " + VersionProvider.version() + ", model " + model.name() + ")");
+            }
             if (summaryPath != null) {
                 s.summaryTarget = s.add(OutputTarget.open(summaryPath, null, force));
                 s.summary = new RecordSummaryWriter(s.summaryTarget.writer(), model.reportedLabels());
@@ -44,6 +74,13 @@ final class SideOutputs implements AutoCloseable {
 
     /** Writes one finished record to every side output. */
     void record(RecordAnnotation a) {
+        if (track != null) {
+            try {
+                track.write(a.seqid(), a.profile().track());
+            } catch (IOException e) {
+                throw failed(trackTarget, e);
+            }
+        }
         if (summary != null) {
             try {
                 summary.write(a);
@@ -59,6 +96,16 @@ final class SideOutputs implements AutoCloseable {
 
     /** Moves every side output into place (before the GFF3, whose presence marks a finished run). */
     void commit() {
+        if (trackText != null) {
+            try {
+                trackText.flush();
+                if (trackGzip != null) {
+                    trackGzip.finish();
+                }
+            } catch (IOException e) {
+                throw failed(trackTarget, e);
+            }
+        }
         for (OutputTarget t : targets) {
             try {
                 t.commit();

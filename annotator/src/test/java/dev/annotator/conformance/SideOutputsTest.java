@@ -29,16 +29,20 @@ import static org.assertj.core.api.Assertions.assertThat;
 import static org.assertj.core.api.Assertions.within;
 
 /**
- * {@code annotate --summary}: every number of a row recomputed here from the FASTA file (read apart from the
- * project's reader) and from the GFF3 written in the same run (read by {@link StrictGff3Reader}).
+ * The outputs {@code annotate} writes beside the GFF3 in the same run. {@code --summary}: every number of a row
+ * recomputed here from the FASTA file (read apart from the project's reader) and from the GFF3 (read by
+ * {@link StrictGff3Reader}). {@code --posterior-track}: the bedGraph format as the UCSC Genome Browser documents
+ * it (genome.ucsc.edu/goldenPath/help/bedgraph.html), and agreement with the GFF3's segments.
  */
 @TestInstance(TestInstance.Lifecycle.PER_CLASS)
-class RecordSummaryTest {
+class SideOutputsTest {
     private Path dir;
     private HmmModel model;
     private Map<String, byte[]> bases;
     private List<ParsedFeature> calls;
     private List<String[]> rows;
+    private Path fasta;
+    private List<String> track;
 
     @BeforeAll
     void annotate(@TempDir Path tmp) throws IOException {
@@ -55,7 +59,7 @@ class RecordSummaryTest {
             }
             records.add(new SequenceRecord(s.record().name(), "", b));
         }
-        Path fasta = dir.resolve("in.fa");
+        fasta = dir.resolve("in.fa");
         try (OutputStream out = Files.newOutputStream(fasta)) {
             FastaWriter w = new FastaWriter(out);
             for (SequenceRecord r : records) {
@@ -67,11 +71,14 @@ class RecordSummaryTest {
         Path tsv = dir.resolve("summary.tsv");
         ByteArrayOutputStream err = new ByteArrayOutputStream();
         int status = Main.run(new String[]{"annotate", "-m", "cpg-island", "-q", "--threads", "2", "-o", gff.toString(),
-                "--summary", tsv.toString(), fasta.toString()}, new ByteArrayInputStream(new byte[0]),
+                "--summary", tsv.toString(), "--posterior-track", dir.resolve("t.bedgraph.gz").toString(), fasta.toString()}, new ByteArrayInputStream(new byte[0]),
                 new ByteArrayOutputStream(), new PrintStream(err, true, StandardCharsets.UTF_8));
         assertThat(status).as(err.toString(StandardCharsets.UTF_8)).isZero();
         bases = PlainFasta.read(fasta);
         calls = StrictGff3Reader.read(gff).features();
+        try (var in = new java.util.zip.GZIPInputStream(Files.newInputStream(dir.resolve("t.bedgraph.gz")))) {
+            track = new String(in.readAllBytes(), StandardCharsets.UTF_8).lines().toList();
+        }
         rows = Files.readAllLines(tsv).stream().map(l -> l.split("\t", -1)).toList();
     }
 
@@ -128,5 +135,64 @@ class RecordSummaryTest {
             double expected = chains.bits(b, 1, b.length) / b.length;
             assertThat(Double.parseDouble(row[10])).isCloseTo(expected, within(0.5e-4 + 1e-9));
         }
+    }
+
+    @Test
+    void trackIsBedGraphCoveringEveryRecordAndAgreesWithTheSegments() {
+        // UCSC bedGraph: a track line with type=bedGraph, then chrom, chromStart, chromEnd, dataValue; 0-based,
+        // end excluded
+        assertThat(track.get(0)).startsWith("track type=bedGraph name=\"").contains(" description=\"");
+        Map<String, int[]> covered = new java.util.LinkedHashMap<>();
+        Map<String, double[]> value = new java.util.HashMap<>();
+        for (String line : track.subList(1, track.size())) {
+            String[] f = line.split("\t", -1);
+            assertThat(f).hasSize(4);
+            int start = Integer.parseInt(f[1]);
+            int end = Integer.parseInt(f[2]);
+            double v = Double.parseDouble(f[3]);
+            assertThat(f[3]).matches("[01]\\.\\d{3}");
+            int[] upTo = covered.computeIfAbsent(f[0], k -> new int[1]);
+            assertThat(start).as(line).isEqualTo(upTo[0]);
+            assertThat(end).isGreaterThan(start);
+            upTo[0] = end;
+            double[] perBase = value.computeIfAbsent(f[0], k -> new double[bases.get(k).length]);
+            Arrays.fill(perBase, start, end, v);
+        }
+        assertThat(covered.keySet()).containsExactly("r1", "r2", "tiny");
+        covered.forEach((seqid, upTo) -> assertThat(upTo[0]).isEqualTo(bases.get(seqid).length));
+        // a segment is a maximal run of posterior > 0.5: its bases read at least 0.500 after rounding, the bases
+        // just outside it at most 0.500
+        for (ParsedFeature f : calls) {
+            double[] perBase = value.get(f.seqid());
+            for (long i = f.start() - 1; i < f.end(); i++) {
+                assertThat(perBase[(int) i]).isGreaterThanOrEqualTo(0.5);
+            }
+            if (f.start() > 1) {
+                assertThat(perBase[(int) f.start() - 2]).isLessThanOrEqualTo(0.5);
+            }
+            if (f.end() < perBase.length) {
+                assertThat(perBase[(int) f.end()]).isLessThanOrEqualTo(0.5);
+            }
+        }
+    }
+
+    @Test
+    void sideOutputsAreRefusedLikeTheGff3() throws IOException {
+        Path existing = Files.writeString(dir.resolve("existing.tsv"), "keep");
+        for (String option : List.of("--summary", "--posterior-track")) {
+            assertThat(run("annotate", "-m", "cpg-island", "-o", dir.resolve("x.gff3").toString(), option,
+                    existing.toString(), fasta.toString())).isEqualTo(2);
+            assertThat(run("annotate", "-m", "cpg-island", "--force", "-o", dir.resolve("x.gff3").toString(), option,
+                    fasta.toString(), fasta.toString())).isEqualTo(2);
+        }
+        assertThat(Files.readString(existing)).isEqualTo("keep");
+        assertThat(run("annotate", "-m", "cpg-island", "--track-label", "background", "--posterior-track",
+                dir.resolve("y.bedgraph").toString(), fasta.toString())).isEqualTo(2);
+        assertThat(dir.resolve("x.gff3")).doesNotExist();
+    }
+
+    private static int run(String... args) {
+        return Main.run(args, new ByteArrayInputStream(new byte[0]), new ByteArrayOutputStream(),
+                new PrintStream(new ByteArrayOutputStream(), true, StandardCharsets.UTF_8));
     }
 }
