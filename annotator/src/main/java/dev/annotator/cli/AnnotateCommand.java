@@ -95,6 +95,11 @@ final class AnnotateCommand implements Callable<Integer> {
                     + "posterior of each BP-base bin.")
     int trackStep;
 
+    @Option(names = "--report", paramLabel = "OUT.html",
+            description = "Also write a self-contained HTML report: run summary, a sortable table of records with "
+                    + "flags, posterior plots of the first 50 records, histograms of segment length and confidence.")
+    String report;
+
     @Option(names = {"-q", "--quiet"}, description = "Print nothing on standard error except errors and warnings.")
     boolean quiet;
 
@@ -131,13 +136,13 @@ final class AnnotateCommand implements Callable<Integer> {
         if (minLength < 0) {
             throw new ParameterException(spec.commandLine(), "--min-length must not be negative, got " + minLength);
         }
-        for (String side : Arrays.asList(summary, posteriorTrack)) {
+        for (String side : Arrays.asList(summary, posteriorTrack, report)) {
             if ("-".equals(side)) {
                 throw new ParameterException(spec.commandLine(),
                         "only the GFF3 can go to standard output; name a file for the other outputs");
             }
         }
-        OutputTarget.refuseBeforeRun(List.of(input, model), Arrays.asList(output, summary, posteriorTrack), force);
+        OutputTarget.refuseBeforeRun(List.of(input, model), Arrays.asList(output, summary, posteriorTrack, report), force);
         if (trackStep < 1) {
             throw new ParameterException(spec.commandLine(), "--track-step must be at least 1, got " + trackStep);
         }
@@ -150,14 +155,24 @@ final class AnnotateCommand implements Callable<Integer> {
                     + " is not a reported label of model " + hmm.name() + " (reported: " + String.join(", ", reported) + ")");
         }
         String label = trackLabel == null ? reported.get(0) : trackLabel;
-        ProfileOptions profile = new ProfileOptions(label, trackStep, posteriorTrack != null, summary != null, 0);
+        ProfileOptions profile = new ProfileOptions(label, trackStep, posteriorTrack != null,
+                summary != null || report != null, report != null ? dev.annotator.report.HtmlReport.PLOT_POINTS : 0);
+        List<dev.annotator.model.InputFingerprint> fingerprints = new java.util.ArrayList<>();
+        if (report != null && !"-".equals(input)) {
+            fingerprints.add(dev.annotator.pipeline.InputFingerprints.of(input));
+            if (java.nio.file.Files.isRegularFile(java.nio.file.Path.of(model))) {
+                fingerprints.add(dev.annotator.pipeline.InputFingerprints.of(model));
+            }
+        }
         AnnotationPipeline pipeline = new AnnotationPipeline(hmm,
                 new AnnotationOptions(decode, minLength, n, idPrefix, profile));
         RunSummary run;
         try (OutputTarget out = OutputTarget.open(output, parent.streams().out(), force);
-             SideOutputs side = SideOutputs.open(hmm, summary, posteriorTrack, label, trackStep, force)) {
+             SideOutputs side = SideOutputs.open(hmm, summary, posteriorTrack, label, trackStep, report, force)) {
             run = pipeline.run(input, parent.streams().in(), out.writer(), out.name(),
                     w -> err.println("annotator: warning: " + w), side::record, reporter);
+            side.finishReport(fingerprints, "-".equals(input) ? "standard input" : input,
+                    String.join(" ", spec.commandLine().getParseResult().originalArgs()), run.seconds());
             side.commit();
             try {
                 out.commit();

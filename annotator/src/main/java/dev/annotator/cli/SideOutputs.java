@@ -29,6 +29,8 @@ final class SideOutputs implements AutoCloseable {
     private Writer trackText;
     private GZIPOutputStream trackGzip;
     private BedGraphWriter track;
+    private OutputTarget reportTarget;
+    private dev.annotator.report.HtmlReport report;
 
     private SideOutputs() {
     }
@@ -39,9 +41,13 @@ final class SideOutputs implements AutoCloseable {
      * @param trackLabel  the label the track follows
      */
     static SideOutputs open(HmmModel model, String summaryPath, String trackPath, String trackLabel, int trackStep,
-                            boolean force) throws IOException {
+                            String reportPath, boolean force) throws IOException {
         SideOutputs s = new SideOutputs();
         try {
+            if (reportPath != null) {
+                s.reportTarget = s.add(OutputTarget.open(reportPath, null, force));
+                s.report = new dev.annotator.report.HtmlReport(model);
+            }
             if (trackPath != null) {
                 s.trackTarget = s.add(OutputTarget.open(trackPath, null, force));
                 OutputStream raw = s.trackTarget.stream();
@@ -74,6 +80,9 @@ final class SideOutputs implements AutoCloseable {
 
     /** Writes one finished record to every side output. */
     void record(RecordAnnotation a) {
+        if (report != null) {
+            report.record(a);
+        }
         if (track != null) {
             try {
                 track.write(a.seqid(), a.profile().track());
@@ -87,6 +96,22 @@ final class SideOutputs implements AutoCloseable {
             } catch (IOException e) {
                 throw failed(summaryTarget, e);
             }
+        }
+    }
+
+    /** Writes the report, if one was asked for, once the run is done. */
+    void finishReport(java.util.List<dev.annotator.model.InputFingerprint> inputs, String inputName, String command,
+                      double seconds) {
+        if (report == null) {
+            return;
+        }
+        try {
+            Writer w = new BufferedWriter(reportTarget.writer(), 1 << 16);
+            report.write(w, inputs, inputName, command, VersionProvider.version(),
+                    java.time.OffsetDateTime.now().withNano(0).toString(), seconds, Caution.TEXT);
+            w.flush();
+        } catch (IOException e) {
+            throw failed(reportTarget, e);
         }
     }
 

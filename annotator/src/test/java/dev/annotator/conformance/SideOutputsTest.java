@@ -32,7 +32,9 @@ import static org.assertj.core.api.Assertions.within;
  * The outputs {@code annotate} writes beside the GFF3 in the same run. {@code --summary}: every number of a row
  * recomputed here from the FASTA file (read apart from the project's reader) and from the GFF3 (read by
  * {@link StrictGff3Reader}). {@code --posterior-track}: the bedGraph format as the UCSC Genome Browser documents
- * it (genome.ucsc.edu/goldenPath/help/bedgraph.html), and agreement with the GFF3's segments.
+ * it (genome.ucsc.edu/goldenPath/help/bedgraph.html), and agreement with the GFF3's segments. {@code --report}:
+ * parsed as XML (XHTML, W3C), every GFF3 segment drawn with its coordinates, the table's composition recounted from
+ * the FASTA, and nothing outside the file referenced.
  */
 @TestInstance(TestInstance.Lifecycle.PER_CLASS)
 class SideOutputsTest {
@@ -71,7 +73,8 @@ class SideOutputsTest {
         Path tsv = dir.resolve("summary.tsv");
         ByteArrayOutputStream err = new ByteArrayOutputStream();
         int status = Main.run(new String[]{"annotate", "-m", "cpg-island", "-q", "--threads", "2", "-o", gff.toString(),
-                "--summary", tsv.toString(), "--posterior-track", dir.resolve("t.bedgraph.gz").toString(), fasta.toString()}, new ByteArrayInputStream(new byte[0]),
+                "--summary", tsv.toString(), "--posterior-track", dir.resolve("t.bedgraph.gz").toString(), "--report", dir.resolve("r.html").toString(),
+                fasta.toString()}, new ByteArrayInputStream(new byte[0]),
                 new ByteArrayOutputStream(), new PrintStream(err, true, StandardCharsets.UTF_8));
         assertThat(status).as(err.toString(StandardCharsets.UTF_8)).isZero();
         bases = PlainFasta.read(fasta);
@@ -194,5 +197,60 @@ class SideOutputsTest {
     private static int run(String... args) {
         return Main.run(args, new ByteArrayInputStream(new byte[0]), new ByteArrayOutputStream(),
                 new PrintStream(new ByteArrayOutputStream(), true, StandardCharsets.UTF_8));
+    }
+
+    @Test
+    void reportIsWellFormedSelfContainedAndShowsEverySegment() throws Exception {
+        javax.xml.parsers.DocumentBuilderFactory factory = javax.xml.parsers.DocumentBuilderFactory.newInstance();
+        factory.setNamespaceAware(true);
+        org.w3c.dom.Document doc = factory.newDocumentBuilder().parse(dir.resolve("r.html").toFile());
+        // every segment of the GFF3 appears as a bar carrying its 1-based coordinates, in its record's plot
+        org.w3c.dom.NodeList svgs = doc.getElementsByTagNameNS("http://www.w3.org/2000/svg", "svg");
+        java.util.Set<String> drawn = new java.util.HashSet<>();
+        for (int i = 0; i < svgs.getLength(); i++) {
+            org.w3c.dom.Element svg = (org.w3c.dom.Element) svgs.item(i);
+            org.w3c.dom.NodeList rects = svg.getElementsByTagNameNS("http://www.w3.org/2000/svg", "rect");
+            for (int k = 0; k < rects.getLength(); k++) {
+                org.w3c.dom.Element r = (org.w3c.dom.Element) rects.item(k);
+                if (r.getAttribute("class").equals("segment")) {
+                    drawn.add(svg.getAttribute("data-seqid") + ":" + r.getAttribute("data-start") + "-"
+                            + r.getAttribute("data-end"));
+                }
+            }
+        }
+        assertThat(drawn).containsExactlyInAnyOrderElementsOf(
+                calls.stream().map(f -> f.seqid() + ":" + f.start() + "-" + f.end()).toList());
+        // nothing external: no src/href attribute, no url(...) or @import in the style, no http address at all
+        String html = Files.readString(dir.resolve("r.html"));
+        assertThat(html).doesNotContain(" src=", " href=", "url(", "@import", "<link", "https:");
+        // the XHTML and SVG namespace names are identifiers, never fetched; no other address may appear
+        assertThat(html.replace("http://www.w3.org/1999/xhtml", "").replace("http://www.w3.org/2000/svg", ""))
+                .doesNotContain("http");
+        // the records table: composition recounted from the FASTA (Gardiner-Garden & Frommer 1987 definitions)
+        org.w3c.dom.NodeList trs = doc.getElementsByTagNameNS("http://www.w3.org/1999/xhtml", "tr");
+        int checked = 0;
+        for (int i = 0; i < trs.getLength(); i++) {
+            org.w3c.dom.NodeList tds = ((org.w3c.dom.Element) trs.item(i))
+                    .getElementsByTagNameNS("http://www.w3.org/1999/xhtml", "td");
+            if (tds.getLength() != 9 || !bases.containsKey(tds.item(0).getTextContent())) {
+                continue;
+            }
+            byte[] b = bases.get(tds.item(0).getTextContent());
+            BaseCounts counts = BaseCounts.of(b, 1, b.length);
+            assertThat(Integer.parseInt(tds.item(1).getTextContent())).isEqualTo(b.length);
+            assertThat(Double.parseDouble(tds.item(2).getTextContent())).isCloseTo(counts.gc(), within(0.5e-3));
+            assertThat(Double.parseDouble(tds.item(3).getTextContent()))
+                    .isCloseTo(counts.cpgObservedExpected(), within(0.5e-3));
+            assertThat(Long.parseLong(tds.item(4).getTextContent())).isEqualTo(counts.ambiguous());
+            long segments = calls.stream().filter(f -> f.seqid().equals(tds.item(0).getTextContent())).count();
+            assertThat(Long.parseLong(tds.item(5).getTextContent())).isEqualTo(segments);
+            // the 2.5 kb gap of r1 is flagged in words
+            if (tds.item(0).getTextContent().equals("r1")) {
+                assertThat(tds.item(8).getTextContent()).startsWith("CHECK:").contains("N run of 2500 bp");
+            }
+            checked++;
+        }
+        assertThat(checked).isEqualTo(3);
+        assertThat(html).contains("research tool");
     }
 }
