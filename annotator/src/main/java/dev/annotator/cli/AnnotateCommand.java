@@ -1,6 +1,7 @@
 package dev.annotator.cli;
 
 import dev.annotator.decode.DecodeMethod;
+import dev.annotator.decode.ProfileOptions;
 import dev.annotator.error.IoFailureException;
 import dev.annotator.model.HmmModel;
 import dev.annotator.model.ModelLoader;
@@ -18,7 +19,7 @@ import picocli.CommandLine.Model.CommandSpec;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.util.Collections;
+import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
@@ -74,6 +75,31 @@ final class AnnotateCommand implements Callable<Integer> {
                     + "genome can be concatenated with unique IDs.")
     String idPrefix;
 
+    @Option(names = "--summary", paramLabel = "OUT.tsv",
+            description = "Also write one tab-separated row per record (length, GC, CpG o/e, N fraction, and per "
+                    + "label segments, bases covered, longest segment, mean and lowest confidence, log-odds in bits "
+                    + "per base).")
+    String summary;
+
+    @Option(names = "--posterior-track", paramLabel = "OUT.bedgraph",
+            description = "Also write the posterior of one label along every record as a bedGraph track "
+                    + "(gzipped when the name ends in .gz).")
+    String posteriorTrack;
+
+    @Option(names = "--track-label", paramLabel = "LABEL",
+            description = "The label the track and the report's plots follow (default: the model's first reported label).")
+    String trackLabel;
+
+    @Option(names = "--track-step", paramLabel = "BP", defaultValue = "1",
+            description = "1 (default): per-base values, neighbours equal at 3 decimals merged; larger: the mean "
+                    + "posterior of each BP-base bin.")
+    int trackStep;
+
+    @Option(names = "--report", paramLabel = "OUT.html",
+            description = "Also write a self-contained HTML report: run summary, a sortable table of records with "
+                    + "flags, posterior plots of the first 50 records, histograms of segment length and confidence.")
+    String report;
+
     @Option(names = {"-q", "--quiet"}, description = "Print nothing on standard error except errors and warnings.")
     boolean quiet;
 
@@ -110,21 +136,51 @@ final class AnnotateCommand implements Callable<Integer> {
         if (minLength < 0) {
             throw new ParameterException(spec.commandLine(), "--min-length must not be negative, got " + minLength);
         }
-        OutputTarget.refuseBeforeRun(List.of(input, model), Collections.singletonList(output), force);
+        for (String side : Arrays.asList(summary, posteriorTrack, report)) {
+            if ("-".equals(side)) {
+                throw new ParameterException(spec.commandLine(),
+                        "only the GFF3 can go to standard output; name a file for the other outputs");
+            }
+        }
+        OutputTarget.refuseBeforeRun(List.of(input, model), Arrays.asList(output, summary, posteriorTrack, report), force);
+        if (trackStep < 1) {
+            throw new ParameterException(spec.commandLine(), "--track-step must be at least 1, got " + trackStep);
+        }
         ProgressReporter reporter = reporter(parent.streams().err());
         HmmModel hmm = ModelLoader.load(model);
         PrintWriter err = parent.streams().err();
-        AnnotationPipeline pipeline = new AnnotationPipeline(hmm, new AnnotationOptions(decode, minLength, n, idPrefix));
-        RunSummary summary;
-        try (OutputTarget out = OutputTarget.open(output, parent.streams().out(), force)) {
-            summary = pipeline.run(input, parent.streams().in(), out.writer(), out.name(),
-                    w -> err.println("annotator: warning: " + w), a -> { }, reporter);
+        List<String> reported = hmm.reportedLabels().stream().map(dev.annotator.model.Label::name).toList();
+        if (trackLabel != null && !reported.contains(trackLabel)) {
+            throw new ParameterException(spec.commandLine(), "--track-label " + trackLabel
+                    + " is not a reported label of model " + hmm.name() + " (reported: " + String.join(", ", reported) + ")");
+        }
+        String label = trackLabel == null ? reported.get(0) : trackLabel;
+        ProfileOptions profile = new ProfileOptions(label, trackStep, posteriorTrack != null,
+                summary != null || report != null, report != null ? dev.annotator.report.HtmlReport.PLOT_POINTS : 0);
+        List<dev.annotator.model.InputFingerprint> fingerprints = new java.util.ArrayList<>();
+        if (report != null && !"-".equals(input)) {
+            fingerprints.add(dev.annotator.pipeline.InputFingerprints.of(input));
+            if (java.nio.file.Files.isRegularFile(java.nio.file.Path.of(model))) {
+                fingerprints.add(dev.annotator.pipeline.InputFingerprints.of(model));
+            }
+        }
+        AnnotationPipeline pipeline = new AnnotationPipeline(hmm,
+                new AnnotationOptions(decode, minLength, n, idPrefix, profile));
+        RunSummary run;
+        try (OutputTarget out = OutputTarget.open(output, parent.streams().out(), force);
+             SideOutputs side = SideOutputs.open(hmm, summary, posteriorTrack, label, trackStep, report, force)) {
+            run = pipeline.run(input, parent.streams().in(), out.writer(), out.name(),
+                    w -> err.println("annotator: warning: " + w), side::record, reporter);
+            side.finishReport(fingerprints, "-".equals(input) ? "standard input" : input,
+                    String.join(" ", spec.commandLine().getParseResult().originalArgs()), run.seconds());
+            side.commit();
             try {
                 out.commit();
             } catch (IOException e) {
                 throw new IoFailureException(out.name() + ": write failed (" + e.getMessage() + ")", e);
             }
         }
+        RunSummary summary = run;
         if (!quiet) {
             err.println(String.format(Locale.ROOT, "annotator: %d record(s), %.3f Mbp, %d segment(s) in %.2f s (%.1f Mbp/s)",
                     summary.records(), summary.bases() / 1e6, summary.segments(), summary.seconds(),

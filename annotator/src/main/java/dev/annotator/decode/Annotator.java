@@ -34,6 +34,8 @@ public final class Annotator {
     private final ForwardBackward forwardBackward;
     private final Viterbi viterbi;
     private final int window;
+    private final ProfileOptions profile;
+    private final int trackLabel;
 
     /**
      * @param minLength segments shorter than this many bases are dropped (0 or 1 keeps all)
@@ -47,6 +49,14 @@ public final class Annotator {
      *               undivided decoding within {@link BoundaryVectors#TOLERANCE}; output is stable for one window)
      */
     public Annotator(HmmModel model, DecodeMethod method, int minLength, int window) {
+        this(model, method, minLength, window, ProfileOptions.NONE);
+    }
+
+    /**
+     * @param profile what to collect per record beside the segments ({@link RecordAnnotation#profile()})
+     * @throws IllegalArgumentException when the profile's track label is not a reported label of the model
+     */
+    public Annotator(HmmModel model, DecodeMethod method, int minLength, int window, ProfileOptions profile) {
         if (window < 1) {
             throw new IllegalArgumentException("window must be positive");
         }
@@ -58,6 +68,8 @@ public final class Annotator {
         this.minLength = minLength;
         this.forwardBackward = new ForwardBackward(parameters);
         this.viterbi = method == DecodeMethod.VITERBI ? new Viterbi(parameters) : null;
+        this.profile = profile;
+        this.trackLabel = trackLabelIndex(labels, profile.trackLabel());
         this.stateToReported = new int[model.stateCount()];
         for (int s = 0; s < stateToReported.length; s++) {
             stateToReported[s] = -1;
@@ -67,6 +79,18 @@ public final class Annotator {
                 }
             }
         }
+    }
+
+    private static int trackLabelIndex(ReportedLabels labels, String name) {
+        if (name == null) {
+            return 0;
+        }
+        for (int r = 0; r < labels.size(); r++) {
+            if (labels.labels().get(r).name().equals(name)) {
+                return r;
+            }
+        }
+        throw new IllegalArgumentException("label " + name + " is not a reported label of the model");
     }
 
     public HmmModel model() {
@@ -94,11 +118,22 @@ public final class Annotator {
         byte[] bases = record.bases();
         List<RawSegment> raw;
         double logLik;
+        List<WindowProfile> windowProfiles = null;
         int k = parameters.stateCount();
         if (method == DecodeMethod.VITERBI) {
             ViterbiPath path = viterbi.decode(bases);
             PathRuns runs = new PathRuns(labels, path.path(), stateToReported, k);
-            logLik = forwardBackward.run(bases, runs);
+            if (profile.any()) {
+                WindowProfile whole = new WindowProfile(labels, trackLabel, profile, 0, bases.length, bases.length, k);
+                logLik = forwardBackward.run(bases, (s, e, p, em) -> {
+                    runs.block(s, e, p, em);
+                    whole.block(s, e, p, em);
+                });
+                whole.finish();
+                windowProfiles = List.of(whole);
+            } else {
+                logLik = forwardBackward.run(bases, runs);
+            }
             raw = runs.segments();
             progress.accept(bases.length);
         } else {
@@ -115,9 +150,13 @@ public final class Annotator {
             }
             raw = new ArrayList<>();
             logLik = 0;
+            windowProfiles = profile.any() ? new ArrayList<>(windows) : null;
             for (WindowTask task : tasks) {
                 raw.addAll(task.join().segments());
                 logLik += task.logLikelihood;
+                if (windowProfiles != null) {
+                    windowProfiles.add(task.profile);
+                }
             }
             raw = WindowStitcher.stitch(raw);
         }
@@ -133,7 +172,9 @@ public final class Annotator {
         }
         List<String> order = labels.labels().stream().map(Label::name).toList();
         segments.sort(Comparator.comparingInt(Segment::start).thenComparingInt(s -> order.indexOf(s.label())));
-        return new RecordAnnotation(record.name(), bases.length, logLik, segments);
+        RecordProfile recordProfile = windowProfiles == null ? null
+                : RecordProfiles.join(profile, labels, trackLabel, bases, windowProfiles);
+        return new RecordAnnotation(record.name(), bases.length, logLik, segments, recordProfile);
     }
 
     /** Posterior decoding of the bases [start, end) of one record, with exact boundary vectors. */
@@ -143,6 +184,7 @@ public final class Annotator {
         private final int end;
         private final LongConsumer progress;
         private double logLikelihood;
+        private WindowProfile profile;
 
         WindowTask(byte[] bases, int start, int end, LongConsumer progress) {
             this.bases = bases;
@@ -156,7 +198,18 @@ public final class Annotator {
             double[] before = start == 0 ? null : BoundaryVectors.forwardBefore(forwardBackward, bases, start);
             double[] last = end == bases.length ? null : BoundaryVectors.backwardAt(forwardBackward, bases, end - 1);
             PosteriorRuns runs = new PosteriorRuns(labels, start, parameters.stateCount());
-            logLikelihood = forwardBackward.runRange(bases, start, end, before, last, runs);
+            if (Annotator.this.profile.any()) {
+                WindowProfile window = new WindowProfile(labels, trackLabel, Annotator.this.profile, start, end,
+                        bases.length, parameters.stateCount());
+                logLikelihood = forwardBackward.runRange(bases, start, end, before, last, (s, e, p, em) -> {
+                    runs.block(s, e, p, em);
+                    window.block(s, e, p, em);
+                });
+                window.finish();
+                profile = window;
+            } else {
+                logLikelihood = forwardBackward.runRange(bases, start, end, before, last, runs);
+            }
             progress.accept(end - start);
             return runs;
         }

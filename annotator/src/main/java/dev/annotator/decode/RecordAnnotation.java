@@ -9,9 +9,15 @@ import java.util.List;
  * @param length        its length in bases
  * @param logLikelihood natural log of P(sequence | model)
  * @param segments      called segments of all reported labels, ordered by start (then by label order)
+ * @param profile       the per-record products asked for with {@link ProfileOptions}; null when none were
  */
-public record RecordAnnotation(String seqid, int length, double logLikelihood, List<Segment> segments) {
+public record RecordAnnotation(String seqid, int length, double logLikelihood, List<Segment> segments,
+                               RecordProfile profile) {
     public RecordAnnotation {
         segments = List.copyOf(segments);
+    }
+
+    public RecordAnnotation(String seqid, int length, double logLikelihood, List<Segment> segments) {
+        this(seqid, length, logLikelihood, segments, null);
     }
 }

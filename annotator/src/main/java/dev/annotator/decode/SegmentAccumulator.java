@@ -56,6 +56,18 @@ final class SegmentAccumulator {
         posteriorSum += labelPosterior;
         posteriorMin = Math.min(posteriorMin, labelPosterior);
         count++;
+        double ratio = emissionRatio(inLabel, labelPosterior, posterior, emission, off);
+        if (ratio != 1) {
+            logOdds += Math.log(ratio);
+        }
+    }
+
+    /**
+     * One base's likelihood ratio, the label's states against the others (each side's emission probability
+     * weighted by its states' posterior); 1 (no evidence) when either side cannot emit the base.
+     */
+    static double emissionRatio(boolean[] inLabel, double labelPosterior, double[] posterior, double[] emission,
+                                int off) {
         double inWeighted = 0;
         double inPlain = 0;
         int inCount = 0;
@@ -77,9 +89,7 @@ final class SegmentAccumulator {
         double outPosterior = 1 - labelPosterior;
         double eIn = labelPosterior > 0 ? inWeighted / labelPosterior : inPlain / inCount;
         double eOut = outPosterior > 0 && outWeighted > 0 ? outWeighted / outPosterior : outPlain / Math.max(1, outCount);
-        if (eIn > 0 && eOut > 0) {
-            logOdds += Math.log(eIn / eOut);
-        }
+        return eIn > 0 && eOut > 0 ? eIn / eOut : 1;
     }
 
     Segment toSegment(String label, int start0, int endExclusive, Composition composition) {

@@ -1,6 +1,7 @@
 package dev.annotator.pipeline;
 
 import dev.annotator.decode.DecodeMethod;
+import dev.annotator.decode.ProfileOptions;
 
 /**
  * How to annotate.
@@ -9,13 +10,22 @@ import dev.annotator.decode.DecodeMethod;
  * @param minLength segments shorter than this are dropped
  * @param threads   records decoded at once; output order and bytes do not depend on it
  * @param idPrefix  put before every feature ID (for shards of one genome annotated separately); may be empty
+ * @param profile   per-record products beside the segments (tracks, summary, report)
  */
-public record AnnotationOptions(DecodeMethod method, int minLength, int threads, String idPrefix) {
+public record AnnotationOptions(DecodeMethod method, int minLength, int threads, String idPrefix,
+                                ProfileOptions profile) {
     public AnnotationOptions(DecodeMethod method, int minLength, int threads) {
         this(method, minLength, threads, "");
     }
 
+    public AnnotationOptions(DecodeMethod method, int minLength, int threads, String idPrefix) {
+        this(method, minLength, threads, idPrefix, ProfileOptions.NONE);
+    }
+
     public AnnotationOptions {
+        if (profile == null) {
+            throw new IllegalArgumentException("profile must not be null");
+        }
         if (idPrefix == null) {
             throw new IllegalArgumentException("idPrefix must not be null");
         }

@@ -32,7 +32,7 @@ public final class AnnotationPipeline {
     public AnnotationPipeline(HmmModel model, AnnotationOptions options) {
         this.model = model;
         this.options = options;
-        this.annotator = new Annotator(model, options.method(), options.minLength());
+        this.annotator = new Annotator(model, options.method(), options.minLength(), Annotator.WINDOW, options.profile());
         this.features = new SegmentFeatures(model.labels());
     }
 

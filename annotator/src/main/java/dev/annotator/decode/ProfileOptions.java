@@ -1,0 +1,29 @@
+package dev.annotator.decode;
+
+/**
+ * What to collect per record beside the segments (all off by default, so plain annotation pays nothing).
+ *
+ * @param trackLabel  the reported label whose posterior the track and the plot follow; null for the first one
+ * @param trackStep   the track's bin in bases: 1 gives per-base values run-length merged at 3 decimals, larger
+ *                    bins give the mean posterior of each bin (bins at multiples of the step, from 0)
+ * @param track       collect the posterior track
+ * @param composition collect the record's GC, CpG o/e, ambiguous bases and per-label log-odds per base
+ * @param plotPoints  when positive, the posterior's maximum and mean and the GC fraction in about this many bins
+ */
+public record ProfileOptions(String trackLabel, int trackStep, boolean track, boolean composition, int plotPoints) {
+    /** Nothing beyond the segments. */
+    public static final ProfileOptions NONE = new ProfileOptions(null, 1, false, false, 0);
+
+    public ProfileOptions {
+        if (trackStep < 1) {
+            throw new IllegalArgumentException("track step must be at least 1");
+        }
+        if (plotPoints < 0) {
+            throw new IllegalArgumentException("plot points must not be negative");
+        }
+    }
+
+    boolean any() {
+        return track || composition || plotPoints > 0;
+    }
+}

@@ -1,0 +1,208 @@
+package dev.annotator.report;
+
+import dev.annotator.decode.PosteriorPlot;
+import dev.annotator.decode.RecordAnnotation;
+import dev.annotator.decode.RecordProfile;
+import dev.annotator.decode.Segment;
+import dev.annotator.model.HmmModel;
+import dev.annotator.model.InputFingerprint;
+import dev.annotator.model.Label;
+
+import java.io.IOException;
+import java.io.Writer;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+
+/**
+ * A self-contained HTML report of one annotation run, collected record by record as the records are done and
+ * written at the end: run summary, a sortable table of records with flags in words, a posterior plot of each of
+ * the first {@link #PLOTTED} records (inline SVG drawn here), and histograms of segment length and confidence.
+ * The markup is well-formed XHTML, so XML tools read it. Memory: one table row per record, plot data of at most
+ * {@link #PLOTTED} records (their bins and segments), and fixed-size histograms.
+ *
+ * <p>Colours: the Okabe-Ito palette, chosen to stay distinct under the common colour-vision deficiencies (Okabe
+ * &amp; Ito 2008, "Color Universal Design", jfly.uni-koeln.de/color/). Flags are words, never colour alone.
+ */
+public final class HtmlReport {
+    /** Records drawn; later records appear in the table only. */
+    public static final int PLOTTED = 50;
+    /** Bins per plotted record. */
+    public static final int PLOT_POINTS = 2000;
+    /** A segment below this confidence flags its record (common practice: a posterior near 0.5 is a coin toss). */
+    static final double LOW_CONFIDENCE = 0.7;
+    /** An N run at least this long flags its record (the size of a typical assembly gap, common practice). */
+    static final int LONG_N_RUN = 100;
+
+    static final String BLUE = "#0072B2";
+    static final String ORANGE = "#E69F00";
+    static final String VERMILLION = "#D55E00";
+    static final String GREY = "#999999";
+
+    private final HmmModel model;
+    private final List<String> labels;
+    private final List<Row> rows = new ArrayList<>();
+    private final List<Plotted> plots = new ArrayList<>();
+    private final Histogram lengths = Histogram.logarithmic(1, 1e7, 28);
+    private final Histogram confidences = Histogram.linear(0, 1, 20);
+
+    record Row(String seqid, int length, double gc, double oe, long ambiguous, int[] counts, long[] covered,
+               double meanConfidence, List<String> flags) {
+    }
+
+    record Plotted(String seqid, int length, PosteriorPlot plot, List<Segment> segments, String label) {
+    }
+
+    public HtmlReport(HmmModel model) {
+        this.model = model;
+        this.labels = model.reportedLabels().stream().map(Label::name).toList();
+    }
+
+    /** Takes one finished record (with a profile holding composition and a plot). */
+    public void record(RecordAnnotation a) {
+        RecordProfile p = a.profile();
+        int[] counts = new int[labels.size()];
+        long[] covered = new long[labels.size()];
+        double sum = 0;
+        boolean low = false;
+        for (Segment s : a.segments()) {
+            int l = labels.indexOf(s.label());
+            counts[l]++;
+            covered[l] += s.length();
+            sum += s.meanPosterior();
+            low |= s.meanPosterior() < LOW_CONFIDENCE;
+            lengths.add(s.length());
+            confidences.add(s.meanPosterior());
+        }
+        List<String> flags = new ArrayList<>();
+        if (low) {
+            flags.add("low-confidence segment");
+        }
+        if (p.longestAmbiguousRun() >= LONG_N_RUN) {
+            flags.add("N run of " + p.longestAmbiguousRun() + " bp");
+        }
+        if (a.length() <= model.maxOrder()) {
+            flags.add("shorter than the model's context");
+        }
+        rows.add(new Row(a.seqid(), a.length(), p.composition().gc(), p.composition().cpgObservedExpected(),
+                p.ambiguousBases(), counts, covered, a.segments().isEmpty() ? Double.NaN : sum / a.segments().size(),
+                flags));
+        if (plots.size() < PLOTTED && p.plot() != null) {
+            plots.add(new Plotted(a.seqid(), a.length(), p.plot(), a.segments(), p.trackLabel()));
+        }
+    }
+
+    /**
+     * @param inputs    the input files with size and SHA-256 (empty for standard input)
+     * @param options   the command line as given
+     * @param version   the tool's version
+     * @param date      when the run ended (ISO 8601)
+     * @param seconds   the run's wall time
+     * @param caution   the research-use caution
+     */
+    public void write(Writer out, List<InputFingerprint> inputs, String inputName, String options, String version,
+                      String date, double seconds, String caution) throws IOException {
+        Xml x = new Xml(out);
+        out.write("<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n<!DOCTYPE html>\n");
+        x.open("html", "xmlns", "http://www.w3.org/1999/xhtml", "lang", "en");
+        x.open("head");
+        x.element("meta", "", "charset", "UTF-8");
+        x.element("title", "annotator report: " + inputName);
+        x.open("style");
+        x.text(Style.CSS);
+        x.close("style");
+        x.close("head");
+        x.open("body");
+        x.element("h1", "Annotation report: " + inputName);
+        x.element("p", caution, "class", "caution");
+        x.element("h2", "Run");
+        x.open("table", "class", "run");
+        for (InputFingerprint f : inputs) {
+            runRow(x, "input", f.name() + " (" + f.bytes() + " bytes, SHA-256 " + f.sha256() + ")");
+        }
+        if (inputs.isEmpty()) {
+            runRow(x, "input", inputName + " (standard input: no size or checksum)");
+        }
+        runRow(x, "model", model.name() + (model.provenance() == null || model.provenance().source() == null ? ""
+                : " (" + model.provenance().source() + ")"));
+        runRow(x, "command", options);
+        runRow(x, "tool", "annotator " + version);
+        runRow(x, "date", date);
+        runRow(x, "runtime", String.format(Locale.ROOT, "%.2f s", seconds));
+        long total = rows.stream().mapToLong(Row::length).sum();
+        runRow(x, "records", rows.size() + " (" + Axis.bases(total) + ")");
+        x.close("table");
+        recordTable(x);
+        x.element("h2", "Posterior along the records");
+        if (rows.size() > plots.size()) {
+            x.element("p", "The first " + plots.size() + " of " + rows.size() + " records are drawn.");
+        }
+        for (Plotted p : plots) {
+            x.element("h3", p.seqid());
+            RecordPlot.draw(x, p);
+        }
+        x.element("h2", "Segments across the run");
+        Histograms.draw(x, lengths, "Segment length", true);
+        Histograms.draw(x, confidences, "Segment confidence (mean posterior)", false);
+        x.open("script");
+        x.text(Style.SORT_SCRIPT);
+        x.close("script");
+        x.close("body");
+        x.close("html");
+        out.write("\n");
+    }
+
+    private static void runRow(Xml x, String key, String value) throws IOException {
+        x.open("tr");
+        x.element("th", key);
+        x.element("td", value);
+        x.close("tr");
+    }
+
+    private void recordTable(Xml x) throws IOException {
+        x.element("h2", "Records");
+        x.element("p", "Click a column header to sort. Flags: a segment of confidence below " + LOW_CONFIDENCE
+                + ", an N run of " + LONG_N_RUN + " bp or more, a record no longer than the model's context.");
+        x.open("table", "class", "records sortable");
+        x.open("thead");
+        x.open("tr");
+        List<String> heads = new ArrayList<>(List.of("record", "length (bp)", "GC", "CpG o/e", "N (bp)"));
+        for (String l : labels) {
+            heads.add(l + " segments");
+            heads.add(l + " bases");
+        }
+        heads.add("mean confidence");
+        heads.add("flags");
+        for (String h : heads) {
+            x.element("th", h);
+        }
+        x.close("tr");
+        x.close("thead");
+        x.open("tbody");
+        for (Row r : rows) {
+            x.open("tr", "class", r.flags().isEmpty() ? "" : "flagged");
+            x.element("td", r.seqid());
+            x.element("td", Long.toString(r.length()));
+            x.element("td", Axis.fixed(r.gc(), 3));
+            x.element("td", Axis.fixed(r.oe(), 3));
+            x.element("td", Long.toString(r.ambiguous()));
+            for (int l = 0; l < labels.size(); l++) {
+                x.element("td", Integer.toString(r.counts()[l]));
+                x.element("td", Long.toString(r.covered()[l]));
+            }
+            x.element("td", Axis.fixed(r.meanConfidence(), 3));
+            x.element("td", r.flags().isEmpty() ? "none" : "CHECK: " + String.join("; ", r.flags()));
+            x.close("tr");
+        }
+        x.close("tbody");
+        x.close("table");
+    }
+
+    static String colour(int labelIndex) {
+        return switch (labelIndex % 3) {
+            case 0 -> BLUE;
+            case 1 -> VERMILLION;
+            default -> ORANGE;
+        };
+    }
+}
