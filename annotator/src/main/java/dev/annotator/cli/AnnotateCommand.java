@@ -156,10 +156,10 @@ final class AnnotateCommand implements Callable<Integer> {
         }
         String label = trackLabel == null ? reported.get(0) : trackLabel;
         ProfileOptions profile = new ProfileOptions(label, trackStep, posteriorTrack != null,
-                summary != null || report != null, report != null ? dev.annotator.report.HtmlReport.PLOT_POINTS : 0);
+                summary != null || report != null, report != null ? dev.annotator.report.HtmlReport.PLOT_POINTS : 0,
+                summary != null);
         List<dev.annotator.model.InputFingerprint> fingerprints = new java.util.ArrayList<>();
-        if (report != null && !"-".equals(input)) {
-            fingerprints.add(dev.annotator.pipeline.InputFingerprints.of(input));
+        if (report != null) {
             if (java.nio.file.Files.isRegularFile(java.nio.file.Path.of(model))) {
                 fingerprints.add(dev.annotator.pipeline.InputFingerprints.of(model));
             }
@@ -171,6 +171,9 @@ final class AnnotateCommand implements Callable<Integer> {
              SideOutputs side = SideOutputs.open(hmm, summary, posteriorTrack, label, trackStep, report, force)) {
             run = pipeline.run(input, parent.streams().in(), out.writer(), out.name(),
                     w -> err.println("annotator: warning: " + w), side::record, reporter);
+            if (run.inputFingerprint() != null) {
+                fingerprints.add(0, run.inputFingerprint());
+            }
             side.finishReport(fingerprints, "-".equals(input) ? "standard input" : input,
                     String.join(" ", spec.commandLine().getParseResult().originalArgs()), run.seconds());
             side.commit();

@@ -11,22 +11,22 @@ public final class CompositionCounter {
     private CompositionCounter() {
     }
 
+    private static final byte[] CODE = BaseCode.table();
+
     /** Composition of {@code bases[from, to)} (0-based, end excluded). */
     public static Composition of(byte[] bases, int from, int to) {
-        long[] n = new long[4];
+        // branch-free counting (bases are close to random, so branches would mispredict): counts indexed by
+        // code, with every ambiguous or invalid byte counted in slot 4; a CpG is previous code 1 then code 2
+        final byte[] code = CODE;
+        long[] n = new long[5];
         long cg = 0;
-        int previous = -1;
+        int previous = 4;
         for (int i = from; i < to; i++) {
-            int code = BaseCode.of(bases[i]);
-            if (code >= 0 && code < 4) {
-                n[code]++;
-                if (previous == 1 && code == 2) {
-                    cg++;
-                }
-                previous = code;
-            } else {
-                previous = -1;
-            }
+            int x = code[bases[i] & 0xFF];
+            x = x < 0 ? 4 : x;
+            n[x]++;
+            cg += (previous << 3 | x) == (1 << 3 | 2) ? 1 : 0;
+            previous = x;
         }
         long length = n[0] + n[1] + n[2] + n[3];
         double gc = length == 0 ? Double.NaN : (double) (n[1] + n[2]) / length;

@@ -7,12 +7,20 @@ package dev.annotator.decode;
  * @param trackStep   the track's bin in bases: 1 gives per-base values run-length merged at 3 decimals, larger
  *                    bins give the mean posterior of each bin (bins at multiples of the step, from 0)
  * @param track       collect the posterior track
- * @param composition collect the record's GC, CpG o/e, ambiguous bases and per-label log-odds per base
+ * @param composition collect the record's GC, CpG o/e and ambiguous bases
  * @param plotPoints  when positive, the posterior's maximum and mean and the GC fraction in about this many bins
+ * @param logOdds     collect each reported label's log-odds per base over the whole record (a pass over every
+ *                    base's emissions, so only when asked for)
  */
-public record ProfileOptions(String trackLabel, int trackStep, boolean track, boolean composition, int plotPoints) {
+public record ProfileOptions(String trackLabel, int trackStep, boolean track, boolean composition, int plotPoints,
+                             boolean logOdds) {
     /** Nothing beyond the segments. */
-    public static final ProfileOptions NONE = new ProfileOptions(null, 1, false, false, 0);
+    public static final ProfileOptions NONE = new ProfileOptions(null, 1, false, false, 0, false);
+
+    /** With the log-odds collected whenever the composition is. */
+    public ProfileOptions(String trackLabel, int trackStep, boolean track, boolean composition, int plotPoints) {
+        this(trackLabel, trackStep, track, composition, plotPoints, composition);
+    }
 
     public ProfileOptions {
         if (trackStep < 1) {
@@ -24,6 +32,6 @@ public record ProfileOptions(String trackLabel, int trackStep, boolean track, bo
     }
 
     boolean any() {
-        return track || composition || plotPoints > 0;
+        return track || composition || plotPoints > 0 || logOdds;
     }
 }

@@ -36,6 +36,8 @@ final class RecordProfiles {
                     longestRun = Math.max(longestRun, run);
                 }
             }
+        }
+        if (options.logOdds()) {
             logOdds = new LinkedHashMap<>();
             for (int r = 0; r < labels.size(); r++) {
                 double total = 0;

@@ -87,6 +87,10 @@ final class SegmentAccumulator {
             }
         }
         double outPosterior = 1 - labelPosterior;
+        if (labelPosterior > 0 && outPosterior > 0 && inWeighted > 0 && outWeighted > 0) {
+            // (inWeighted / labelPosterior) / (outWeighted / outPosterior) with one division: this runs per base
+            return (inWeighted * outPosterior) / (outWeighted * labelPosterior);
+        }
         double eIn = labelPosterior > 0 ? inWeighted / labelPosterior : inPlain / inCount;
         double eOut = outPosterior > 0 && outWeighted > 0 ? outWeighted / outPosterior : outPlain / Math.max(1, outCount);
         return eIn > 0 && eOut > 0 ? eIn / eOut : 1;

@@ -8,8 +8,8 @@ import dev.annotator.hmm.PosteriorBlockSink;
  * {@link RecordProfiles} joins them in window order.
  */
 final class WindowProfile implements PosteriorBlockSink {
-    private static final double BIG = 0x1p200;
-    private static final double SMALL = 0x1p-200;
+    private static final double BIG = 0x1p900;
+    private static final double SMALL = 0x1p-900;
     private final boolean[][] masks;
     private final int trackLabel;
     private final int stateCount;
@@ -45,7 +45,7 @@ final class WindowProfile implements PosteriorBlockSink {
             max = null;
             sum = null;
         }
-        if (options.composition()) {
+        if (options.logOdds()) {
             product = new double[masks.length];
             java.util.Arrays.fill(product, 1);
             exponent = new long[masks.length];
@@ -59,22 +59,32 @@ final class WindowProfile implements PosteriorBlockSink {
     public void block(int blockStart, int blockEnd, double[] posterior, double[] emission) {
         boolean[] mask = masks[trackLabel];
         boolean wantsPosterior = track != null || max != null;
+        // the plot bin of t and where that bin starts, stepped down as t descends (no division per base)
+        int bin = max == null ? 0 : (blockEnd - 1) / plotBin;
+        int binStart = bin * plotBin;
         for (int t = blockEnd - 1; t >= blockStart; t--) {
             int off = (t - blockStart) * stateCount;
+            double trackPosterior = 0;
             if (wantsPosterior) {
                 double p = SegmentAccumulator.labelPosterior(mask, posterior, off);
+                trackPosterior = p;
                 if (track != null) {
                     track.add(t, p);
                 }
                 if (max != null) {
-                    int b = t / plotBin - firstBin;
+                    if (t < binStart) {
+                        bin--;
+                        binStart -= plotBin;
+                    }
+                    int b = bin - firstBin;
                     max[b] = Math.max(max[b], (float) p);
                     sum[b] += p;
                 }
             }
             if (product != null) {
                 for (int r = 0; r < masks.length; r++) {
-                    double lp = SegmentAccumulator.labelPosterior(masks[r], posterior, off);
+                    double lp = wantsPosterior && r == trackLabel ? trackPosterior
+                            : SegmentAccumulator.labelPosterior(masks[r], posterior, off);
                     double x = product[r] * SegmentAccumulator.emissionRatio(masks[r], lp, posterior, emission, off);
                     if (x > BIG || x < SMALL) {
                         int e = Math.getExponent(x);

@@ -55,14 +55,14 @@ public final class InputOpener {
     }
 
     /**
-     * As {@link #open(String, InputStream)}, counting the bytes taken from the file or stdin (compressed bytes
-     * for gzip) into {@code rawBytes} when it is not null: progress against the file's size.
+     * As {@link #open(String, InputStream)}, showing the bytes taken from the file or stdin (compressed bytes for
+     * gzip) to {@code rawBytes} when it is not null: progress against the file's size, checksums.
      */
-    public static InputStream open(String pathOrDash, InputStream stdin, java.util.concurrent.atomic.LongAdder rawBytes) {
+    public static InputStream open(String pathOrDash, InputStream stdin, RawInputObserver rawBytes) {
         String name = displayName(pathOrDash);
         InputStream raw = STDIN.equals(pathOrDash) ? new KeepOpenInputStream(stdin) : openFile(pathOrDash);
         if (rawBytes != null) {
-            raw = new CountingInputStream(raw, rawBytes);
+            raw = new ObservedInputStream(raw, rawBytes);
         }
         BufferedInputStream buffered = new BufferedInputStream(raw, BUFFER_SIZE);
         boolean gzip = false;
@@ -157,20 +157,22 @@ public final class InputOpener {
         }
     }
 
-    /** Adds every byte read to a shared counter (read by a progress display on another thread). */
-    private static final class CountingInputStream extends FilterInputStream {
-        private final java.util.concurrent.atomic.LongAdder count;
+    /** Shows every byte read to an observer. */
+    private static final class ObservedInputStream extends FilterInputStream {
+        private final RawInputObserver observer;
+        private final byte[] one = new byte[1];
 
-        CountingInputStream(InputStream in, java.util.concurrent.atomic.LongAdder count) {
+        ObservedInputStream(InputStream in, RawInputObserver observer) {
             super(in);
-            this.count = count;
+            this.observer = observer;
         }
 
         @Override
         public int read() throws IOException {
             int b = in.read();
             if (b >= 0) {
-                count.increment();
+                one[0] = (byte) b;
+                observer.consumed(one, 0, 1);
             }
             return b;
         }
@@ -179,9 +181,17 @@ public final class InputOpener {
         public int read(byte[] b, int off, int len) throws IOException {
             int n = in.read(b, off, len);
             if (n > 0) {
-                count.add(n);
+                observer.consumed(b, off, n);
             }
             return n;
+        }
+
+        @Override
+        public long skip(long n) throws IOException {
+            // skipped bytes would be missing from a checksum: read them instead
+            byte[] buf = new byte[(int) Math.min(n, 1 << 16)];
+            int r = read(buf, 0, buf.length);
+            return Math.max(r, 0);
         }
     }
 }

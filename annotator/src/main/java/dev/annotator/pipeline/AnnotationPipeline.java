@@ -74,9 +74,13 @@ public final class AnnotationPipeline {
             progress.accept(annotation);
         };
         ProgressTracker tracker = reporter == null ? null : new ProgressTracker(reporter, inputSize(input));
+        // a report names its input by SHA-256, taken from the bytes as they are parsed: one pass over the input
+        StreamFingerprint fingerprint = options.profile().plotPoints() > 0 ? new StreamFingerprint() : null;
+        dev.annotator.io.RawInputObserver observer = tracker == null ? fingerprint
+                : fingerprint == null ? tracker : tracker.andThen(fingerprint);
         MemoryBudget budget = MemoryBudget.ofThisJvm(model.stateCount(), options.method());
         try (FastaRecordReader reader = FastaRecordReader.open(input, stdin, warnings, budget.recordLimit(),
-                tracker == null ? null : tracker.rawBytesRead);
+                observer);
              OrderedParallelMap<SequenceRecord, RecordAnnotation> map = new OrderedParallelMap<>(options.threads(),
                      r -> decode(r, inputName, tracker), sink, SequenceRecord::length, budget.basesInFlight())) {
             writer.writeHeader();
@@ -99,7 +103,8 @@ public final class AnnotationPipeline {
                 tracker.close();
             }
         }
-        return new RunSummary(counts[0], bases[0], counts[1], (System.nanoTime() - started) / 1e9);
+        return new RunSummary(counts[0], bases[0], counts[1], (System.nanoTime() - started) / 1e9,
+                fingerprint == null ? null : fingerprint.finish(inputName));
     }
 
     private static long inputSize(String input) {

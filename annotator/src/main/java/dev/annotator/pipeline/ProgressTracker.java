@@ -11,7 +11,7 @@ import java.util.concurrent.atomic.LongAdder;
  * total is estimated from the input file's size and the bases per byte seen so far, which works for plain and
  * gzipped FASTA alike, and becomes exact when the reader reaches the end of the input.
  */
-final class ProgressTracker implements AutoCloseable {
+final class ProgressTracker implements AutoCloseable, dev.annotator.io.RawInputObserver {
     private final ProgressReporter reporter;
     private final long inputBytes;
     private final long startNanos = System.nanoTime();
@@ -32,6 +32,11 @@ final class ProgressTracker implements AutoCloseable {
         });
         timer.scheduleAtFixedRate(() -> reporter.report(snapshot()), reporter.intervalMillis(),
                 reporter.intervalMillis(), TimeUnit.MILLISECONDS);
+    }
+
+    @Override
+    public void consumed(byte[] bytes, int offset, int length) {
+        rawBytesRead.add(length);
     }
 
     void recordRead(int length) {

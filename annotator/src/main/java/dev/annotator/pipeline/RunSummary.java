@@ -1,7 +1,16 @@
 package dev.annotator.pipeline;
 
-/** What one annotation run did, for progress lines and benchmarks. */
-public record RunSummary(int records, long bases, int segments, double seconds) {
+/**
+ * What one annotation run did, for progress lines, reports and benchmarks.
+ *
+ * @param inputFingerprint size and SHA-256 of the input as read, when the run was asked for it (else null)
+ */
+public record RunSummary(int records, long bases, int segments, double seconds,
+                         dev.annotator.model.InputFingerprint inputFingerprint) {
+    public RunSummary(int records, long bases, int segments, double seconds) {
+        this(records, bases, segments, seconds, null);
+    }
+
     public double megabasesPerSecond() {
         return seconds > 0 ? bases / seconds / 1e6 : Double.NaN;
     }

@@ -67,9 +67,9 @@ public final class FastaRecordReader implements AutoCloseable {
         return open(pathOrDash, stdin, warnings, limit, null);
     }
 
-    /** As above, also counting the raw input bytes read into {@code rawBytes} (may be null), for progress. */
+    /** As above, also showing the raw input bytes read to {@code rawBytes} (may be null), for progress and checksums. */
     public static FastaRecordReader open(String pathOrDash, InputStream stdin, Consumer<String> warnings,
-                                         RecordLengthLimit limit, java.util.concurrent.atomic.LongAdder rawBytes) {
+                                         RecordLengthLimit limit, dev.annotator.io.RawInputObserver rawBytes) {
         String name = InputOpener.displayName(pathOrDash);
         InputStream in = InputOpener.open(pathOrDash, stdin, rawBytes);
         return new FastaRecordReader(name, new FastaLineScanner(in, name, limit), warnings);
