@@ -1,7 +1,6 @@
 package dev.annotator.decode;
 
 import dev.annotator.model.Label;
-import dev.annotator.seq.BaseCode;
 
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -23,18 +22,28 @@ final class RecordProfiles {
         long ambiguous = 0;
         int longestRun = 0;
         Map<String, Double> logOdds = null;
-        if (options.composition()) {
-            composition = CompositionCounter.of(bases, 0, n);
-            int run = 0;
-            for (byte b : bases) {
-                int code = BaseCode.of(b);
-                if (code >= 0 && code < 4) {
-                    run = 0;
-                } else {
-                    ambiguous++;
-                    run++;
-                    longestRun = Math.max(longestRun, run);
+        boolean plotting = options.plotPoints() > 0 && n > 0;
+        int bin = plotting ? PosteriorPlot.binSize(n, options.plotPoints()) : 0;
+        int bins = plotting ? (n - 1) / bin + 1 : 0;
+        float[] gc = new float[bins];
+        if (options.composition() || plotting) {
+            // one pass over the bases: the record's composition, and each bin's GC from the running counts
+            BaseTally tally = new BaseTally();
+            if (plotting) {
+                for (int b = 0; b < bins; b++) {
+                    long gcBefore = tally.gcCount();
+                    long basesBefore = tally.unambiguous();
+                    tally.add(bases, b * bin, Math.min(n, (b + 1) * bin));
+                    long clean = tally.unambiguous() - basesBefore;
+                    gc[b] = clean == 0 ? Float.NaN : (float) ((double) (tally.gcCount() - gcBefore) / clean);
                 }
+            } else {
+                tally.add(bases, 0, n);
+            }
+            if (options.composition()) {
+                composition = tally.composition();
+                ambiguous = tally.ambiguous();
+                longestRun = (int) tally.longestAmbiguousRun();
             }
         }
         if (options.logOdds()) {
@@ -48,9 +57,7 @@ final class RecordProfiles {
             }
         }
         PosteriorPlot plot = null;
-        if (options.plotPoints() > 0 && n > 0) {
-            int bin = PosteriorPlot.binSize(n, options.plotPoints());
-            int bins = (n - 1) / bin + 1;
+        if (plotting) {
             float[] max = new float[bins];
             double[] sum = new double[bins];
             for (WindowProfile w : windows) {
@@ -60,12 +67,10 @@ final class RecordProfiles {
                 }
             }
             float[] mean = new float[bins];
-            float[] gc = new float[bins];
             for (int b = 0; b < bins; b++) {
                 int from = b * bin;
                 int to = Math.min(n, from + bin);
                 mean[b] = (float) (sum[b] / (to - from));
-                gc[b] = (float) CompositionCounter.of(bases, from, to).gc();
             }
             plot = new PosteriorPlot(bin, max, mean, gc);
         }

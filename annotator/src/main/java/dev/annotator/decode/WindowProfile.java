@@ -12,6 +12,8 @@ final class WindowProfile implements PosteriorBlockSink {
     private static final double SMALL = 0x1p-900;
     private final boolean[][] masks;
     private final int trackLabel;
+    // the track label's only state when it has one (the posterior is then read, not summed), else -1
+    private final int trackState;
     private final int stateCount;
     final int start;
     final int end;
@@ -30,6 +32,15 @@ final class WindowProfile implements PosteriorBlockSink {
         this.masks = labels.stateMasks();
         this.trackLabel = trackLabel;
         this.stateCount = stateCount;
+        int only = -1;
+        int count = 0;
+        for (int st = 0; st < masks[trackLabel].length; st++) {
+            if (masks[trackLabel][st]) {
+                only = st;
+                count++;
+            }
+        }
+        this.trackState = count == 1 ? only : -1;
         this.start = start;
         this.end = end;
         this.track = options.track() ? new TrackPiece(start, end, length, options.trackStep()) : null;
@@ -57,28 +68,41 @@ final class WindowProfile implements PosteriorBlockSink {
 
     @Override
     public void block(int blockStart, int blockEnd, double[] posterior, double[] emission) {
+        if (max != null && track == null && product == null && trackState >= 0) {
+            plotOnly(blockStart, blockEnd, posterior);
+            return;
+        }
         boolean[] mask = masks[trackLabel];
         boolean wantsPosterior = track != null || max != null;
-        // the plot bin of t and where that bin starts, stepped down as t descends (no division per base)
+        // the plot bin of t and where that bin starts, stepped down as t descends (no division per base); the
+        // bin's maximum and sum stay in locals while t is inside it
         int bin = max == null ? 0 : (blockEnd - 1) / plotBin;
         int binStart = bin * plotBin;
+        double binMax = max == null ? 0 : max[bin - firstBin];
+        double binSum = max == null ? 0 : sum[bin - firstBin];
         for (int t = blockEnd - 1; t >= blockStart; t--) {
             int off = (t - blockStart) * stateCount;
             double trackPosterior = 0;
             if (wantsPosterior) {
-                double p = SegmentAccumulator.labelPosterior(mask, posterior, off);
+                double p = trackState >= 0 ? posterior[off + trackState]
+                        : SegmentAccumulator.labelPosterior(mask, posterior, off);
                 trackPosterior = p;
                 if (track != null) {
                     track.add(t, p);
                 }
                 if (max != null) {
                     if (t < binStart) {
+                        max[bin - firstBin] = (float) binMax;
+                        sum[bin - firstBin] = binSum;
                         bin--;
                         binStart -= plotBin;
+                        binMax = max[bin - firstBin];
+                        binSum = sum[bin - firstBin];
                     }
-                    int b = bin - firstBin;
-                    max[b] = Math.max(max[b], (float) p);
-                    sum[b] += p;
+                    if (p > binMax) {
+                        binMax = p;
+                    }
+                    binSum += p;
                 }
             }
             if (product != null) {
@@ -94,6 +118,44 @@ final class WindowProfile implements PosteriorBlockSink {
                     product[r] = x;
                 }
             }
+        }
+        if (max != null) {
+            max[bin - firstBin] = (float) binMax;
+            sum[bin - firstBin] = binSum;
+        }
+    }
+
+    /**
+     * The report's common case (plot bins of a one-state label, nothing else): bin by bin, a tight loop with two
+     * partial sums so consecutive additions do not wait for each other.
+     */
+    private void plotOnly(int blockStart, int blockEnd, double[] posterior) {
+        int k = stateCount;
+        int s = trackState;
+        int end = blockEnd;
+        while (end > blockStart) {
+            int bin = (end - 1) / plotBin;
+            int from = Math.max(blockStart, bin * plotBin);
+            double m = max[bin - firstBin];
+            double sumA = 0;
+            double sumB = 0;
+            int t = end - 1;
+            for (; t - 1 >= from; t -= 2) {
+                double p = posterior[(t - blockStart) * k + s];
+                double q = posterior[(t - 1 - blockStart) * k + s];
+                double pq = p > q ? p : q;
+                m = pq > m ? pq : m;
+                sumA += p;
+                sumB += q;
+            }
+            if (t >= from) {
+                double p = posterior[(t - blockStart) * k + s];
+                m = p > m ? p : m;
+                sumA += p;
+            }
+            max[bin - firstBin] = (float) m;
+            sum[bin - firstBin] += sumA + sumB;
+            end = from;
         }
     }
 
