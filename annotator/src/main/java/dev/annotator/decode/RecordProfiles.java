@@ -8,7 +8,38 @@ import java.util.Map;
 
 /** Joins the windows' {@link WindowProfile}s of one record, in window order, and adds what the bases give. */
 final class RecordProfiles {
+    /**
+     * Shortest stretch a plotted GC value is taken over: on short records the plot bins hold a few bases, and the
+     * GC of 3 bases jumps between 0, 1/3, 2/3 and 1. 200 bp is the length over which island criteria judge GC
+     * (Gardiner-Garden &amp; Frommer 1987).
+     */
+    static final int MIN_GC_WINDOW = 200;
+
     private RecordProfiles() {
+    }
+
+    /** GC of a {@link #MIN_GC_WINDOW}-base window centred on each bin (clipped at the record's ends). */
+    private static float[] windowedGc(byte[] bases, int bin, int bins) {
+        int n = bases.length;
+        // prefix counts of unambiguous and of G/C bases; only for short records (bins under 200 bp), so small
+        int[] clean = new int[n + 1];
+        int[] gcCount = new int[n + 1];
+        for (int i = 0; i < n; i++) {
+            int code = dev.annotator.seq.BaseCode.of(bases[i]);
+            boolean unambiguous = code >= 0 && code < 4;
+            clean[i + 1] = clean[i] + (unambiguous ? 1 : 0);
+            gcCount[i + 1] = gcCount[i] + (code == 1 || code == 2 ? 1 : 0);
+        }
+        float[] gc = new float[bins];
+        for (int b = 0; b < bins; b++) {
+            int centre = Math.min(n, b * bin + bin / 2);
+            int from = Math.max(0, centre - MIN_GC_WINDOW / 2);
+            int to = Math.min(n, from + MIN_GC_WINDOW);
+            from = Math.max(0, to - MIN_GC_WINDOW);
+            int c = clean[to] - clean[from];
+            gc[b] = c == 0 ? Float.NaN : (float) (gcCount[to] - gcCount[from]) / c;
+        }
+        return gc;
     }
 
     static RecordProfile join(ProfileOptions options, ReportedLabels labels, int trackLabel, byte[] bases,
@@ -39,6 +70,9 @@ final class RecordProfiles {
                 }
             } else {
                 tally.add(bases, 0, n);
+            }
+            if (plotting && bin < MIN_GC_WINDOW) {
+                gc = windowedGc(bases, bin, bins);
             }
             if (options.composition()) {
                 composition = tally.composition();

@@ -36,9 +36,9 @@ final class RecordPlot {
         x.element("text", "posterior of " + p.label() + " (maximum per bin; shaded: mean)", "x", "84", "y", "16");
         x.element("line", "", "x1", "470", "y1", "12", "x2", "490", "y2", "12", "stroke", HtmlReport.ORANGE,
                 "stroke-width", "2", "stroke-dasharray", "4 2");
-        x.element("text", "GC fraction (right axis)", "x", "494", "y", "16");
-        x.element("rect", "", "x", "680", "y", "6", "width", "20", "height", "10", "fill", HtmlReport.colour(0));
-        x.element("text", "called segments (darker = more confident)", "x", "704", "y", "16");
+        x.element("text", "GC, windows of 200 bp or more (right axis)", "x", "494", "y", "16");
+        x.element("rect", "", "x", "720", "y", "6", "width", "20", "height", "10", "fill", HtmlReport.colour(0));
+        x.element("text", "called segments (darker = more confident)", "x", "744", "y", "16");
         // frame and y axes
         x.element("rect", "", "x", str(LEFT), "y", str(TOP), "width", str(RIGHT - LEFT), "height", str(BOTTOM - TOP),
                 "fill", "none", "stroke", HtmlReport.GREY);
