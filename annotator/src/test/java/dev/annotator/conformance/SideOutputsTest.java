@@ -253,4 +253,28 @@ class SideOutputsTest {
         assertThat(checked).isEqualTo(3);
         assertThat(html).contains("research tool");
     }
+
+    /**
+     * Renders the report once in headless Chromium (Debian's package; .ci/run installs it when it can) and keeps
+     * the screenshot as target/report-screenshot.png for a person to look at. Skipped where Chromium is absent.
+     */
+    @Test
+    void reportRendersInAHeadlessBrowser() throws Exception {
+        Path chromium = Path.of("/usr/bin/chromium");
+        org.junit.jupiter.api.Assumptions.assumeTrue(Files.isExecutable(chromium), "chromium is not installed");
+        Path shot = Path.of("target", "report-screenshot.png").toAbsolutePath();
+        Files.deleteIfExists(shot);
+        // the flags keep Chromium off the network: no background services, no updates, a fresh profile
+        Process p = new ProcessBuilder(chromium.toString(), "--headless", "--no-sandbox", "--disable-gpu",
+                "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update",
+                "--disable-sync", "--user-data-dir=" + dir.resolve("chromium-profile"), "--window-size=1300,2400",
+                "--screenshot=" + shot, dir.resolve("r.html").toUri().toString())
+                .redirectErrorStream(true).redirectOutput(dir.resolve("chromium.log").toFile()).start();
+        org.junit.jupiter.api.Assumptions.assumeTrue(p.waitFor(90, java.util.concurrent.TimeUnit.SECONDS),
+                "chromium did not finish in 90 s");
+        assertThat(shot).exists();
+        byte[] png = Files.readAllBytes(shot);
+        assertThat(png.length).as("a page with plots, not a blank one").isGreaterThan(20_000);
+        assertThat(Arrays.copyOf(png, 4)).containsExactly(0x89, 'P', 'N', 'G');
+    }
 }
