@@ -11,6 +11,7 @@ import dev.annotator.gff.SegmentFeatures;
 import dev.annotator.hmm.ImpossibleSequenceException;
 import dev.annotator.io.InputOpener;
 import dev.annotator.model.HmmModel;
+import dev.annotator.parallel.OrderedParallelMap;
 import dev.annotator.seq.FastaRecordReader;
 import dev.annotator.seq.SequenceRecord;
 

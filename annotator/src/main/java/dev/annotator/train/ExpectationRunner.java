@@ -6,16 +6,15 @@ import dev.annotator.hmm.ExpectedCounts;
 import dev.annotator.hmm.ImpossibleSequenceException;
 import dev.annotator.model.HmmModel;
 import dev.annotator.model.ModelCompiler;
+import dev.annotator.parallel.OrderedParallelMap;
 
-import java.util.ArrayDeque;
+
 import java.util.ArrayList;
-import java.util.Deque;
 import java.util.Iterator;
 import java.util.List;
+
 import java.util.concurrent.Callable;
-import java.util.concurrent.ExecutionException;
-import java.util.concurrent.ForkJoinPool;
-import java.util.concurrent.Future;
+import java.util.concurrent.ForkJoinTask;
 
 /**
  * Runs E-steps over a stream of sequences on a fixed number of threads, with results that do not depend on it.
@@ -31,14 +30,12 @@ public final class ExpectationRunner implements AutoCloseable {
     public static final long BATCH_BASES = 1_000_000;
 
     private final int threads;
-    private final ForkJoinPool pool;
 
     public ExpectationRunner(int threads) {
         if (threads < 1) {
             throw new IllegalArgumentException("threads must be at least 1");
         }
         this.threads = threads;
-        this.pool = threads > 1 ? new ForkJoinPool(threads) : null;
     }
 
     /** The kernel for a model: label-restricted when {@code labelled}. */
@@ -79,7 +76,7 @@ public final class ExpectationRunner implements AutoCloseable {
         ExpectedCounts tail = kernel.newCounts();
         for (CountItem item : batch) {
             try {
-                kernel.accumulate(item.bases(), item.labels(), head, tail, pool != null);
+                kernel.accumulate(item.bases(), item.labels(), head, tail, ForkJoinTask.inForkJoinPool());
             } catch (ImpossibleSequenceException e) {
                 throw impossible(item, model, e);
             }
@@ -96,8 +93,8 @@ public final class ExpectationRunner implements AutoCloseable {
 
     private <R> void runBatches(Iterator<CountItem> items, java.util.function.Function<List<CountItem>, Callable<R>> task,
                                 java.util.function.Consumer<R> sink) {
-        Deque<Future<R>> inFlight = new ArrayDeque<>();
-        try {
+        try (OrderedParallelMap<List<CountItem>, R> map = new OrderedParallelMap<>(threads,
+                batch -> call(task.apply(batch)), sink)) {
             List<CountItem> batch = new ArrayList<>();
             long bases = 0;
             while (items.hasNext()) {
@@ -105,62 +102,30 @@ public final class ExpectationRunner implements AutoCloseable {
                 batch.add(item);
                 bases += item.bases().length;
                 if (bases >= BATCH_BASES) {
-                    submit(task.apply(batch), inFlight, sink);
+                    map.submit(batch);
                     batch = new ArrayList<>();
                     bases = 0;
                 }
             }
             if (!batch.isEmpty()) {
-                submit(task.apply(batch), inFlight, sink);
+                map.submit(batch);
             }
-            while (!inFlight.isEmpty()) {
-                sink.accept(await(inFlight.poll()));
-            }
-        } finally {
-            for (Future<R> f : inFlight) {
-                f.cancel(true);
-            }
+            map.finish();
         }
     }
 
-    private <R> void submit(Callable<R> job, Deque<Future<R>> inFlight, java.util.function.Consumer<R> sink) {
-        if (pool == null) {
-            try {
-                sink.accept(job.call());
-            } catch (RuntimeException e) {
-                throw e;
-            } catch (Exception e) {
-                throw new IllegalStateException(e);
-            }
-            return;
-        }
-        inFlight.add(pool.submit(job));
-        while (inFlight.size() > threads) {
-            sink.accept(await(inFlight.poll()));
-        }
-    }
-
-    private static <R> R await(Future<R> future) {
+    private static <R> R call(Callable<R> job) {
         try {
-            return future.get();
-        } catch (InterruptedException e) {
-            Thread.currentThread().interrupt();
-            throw new IllegalStateException("interrupted", e);
-        } catch (ExecutionException e) {
-            if (e.getCause() instanceof RuntimeException re) {
-                throw re;
-            }
-            if (e.getCause() instanceof Error err) {
-                throw err;
-            }
-            throw new IllegalStateException(e.getCause());
+            return job.call();
+        } catch (RuntimeException e) {
+            throw e;
+        } catch (Exception e) {
+            throw new IllegalStateException(e);
         }
     }
 
+    /** Nothing to release: each run's threads end with it. */
     @Override
     public void close() {
-        if (pool != null) {
-            pool.shutdownNow();
-        }
     }
 }

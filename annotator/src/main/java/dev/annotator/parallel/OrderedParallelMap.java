@@ -1,4 +1,4 @@
-package dev.annotator.pipeline;
+package dev.annotator.parallel;
 
 import java.util.ArrayDeque;
 import java.util.Deque;
@@ -15,7 +15,7 @@ import java.util.function.ToLongFunction;
  * (a record's length): the weights in flight stay within a budget, except that one item is always let through.
  * Items run as fork-join tasks, so an item may fork work of its own onto the same threads.
  */
-final class OrderedParallelMap<I, O> implements AutoCloseable {
+public final class OrderedParallelMap<I, O> implements AutoCloseable {
     private final Function<I, O> function;
     private final Consumer<O> downstream;
     private final int threads;
@@ -26,11 +26,11 @@ final class OrderedParallelMap<I, O> implements AutoCloseable {
     private final Deque<Long> weights = new ArrayDeque<>();
     private long weightInFlight;
 
-    OrderedParallelMap(int threads, Function<I, O> function, Consumer<O> downstream) {
+    public OrderedParallelMap(int threads, Function<I, O> function, Consumer<O> downstream) {
         this(threads, function, downstream, item -> 0, Long.MAX_VALUE);
     }
 
-    OrderedParallelMap(int threads, Function<I, O> function, Consumer<O> downstream, ToLongFunction<I> weight,
+    public OrderedParallelMap(int threads, Function<I, O> function, Consumer<O> downstream, ToLongFunction<I> weight,
                        long maxWeightInFlight) {
         this.function = function;
         this.downstream = downstream;
@@ -41,7 +41,7 @@ final class OrderedParallelMap<I, O> implements AutoCloseable {
         this.pool = threads > 1 ? new ForkJoinPool(threads) : null;
     }
 
-    void submit(I item) {
+    public void submit(I item) {
         if (pool == null) {
             downstream.accept(function.apply(item));
             return;
@@ -59,7 +59,7 @@ final class OrderedParallelMap<I, O> implements AutoCloseable {
     }
 
     /** Waits for everything submitted and passes it on. */
-    void finish() {
+    public void finish() {
         while (!inFlight.isEmpty()) {
             passOnOldest();
         }

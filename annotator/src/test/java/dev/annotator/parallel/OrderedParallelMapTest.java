@@ -1,4 +1,4 @@
-package dev.annotator.pipeline;
+package dev.annotator.parallel;
 
 import org.junit.jupiter.api.Test;
 
