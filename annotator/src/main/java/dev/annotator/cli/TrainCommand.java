@@ -60,7 +60,7 @@ import java.util.concurrent.Callable;
                 Caution.TEXT})
 final class TrainCommand implements Callable<Integer> {
     /** Options that cannot change the trained numbers; left out of the command line the model records. */
-    private static final List<String> RESULT_NEUTRAL_FLAGS = List.of("-q", "--quiet", "--debug");
+    private static final List<String> RESULT_NEUTRAL_FLAGS = List.of("-q", "--quiet", "--debug", "--force");
     private static final List<String> RESULT_NEUTRAL_WITH_VALUE = List.of("--threads");
 
     @Spec
