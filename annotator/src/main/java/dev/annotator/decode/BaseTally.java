@@ -6,36 +6,70 @@ import dev.annotator.seq.BaseCode;
  * Running counts over a record read left to right in pieces: bases by kind, CpG pairs (counted across piece
  * boundaries too), ambiguous bases and the longest run of them. One pass gives the record's composition and each
  * plot bin's GC from the differences between snapshots.
+ *
+ * <p>The counts of A, C, G and T are packed into one long (16 bits each) and added with one table lookup per
+ * base, flushed before a field can overflow; CpG pairs come from a table indexed by the previous and the current
+ * byte. Ambiguous bases are rare, so the run lengths are measured only in pieces that hold any.
  */
 final class BaseTally {
+    private static final long[] PACKED = packedIncrements();
+    private static final byte[] CPG = cpgPairs();
     private static final byte[] CODE = BaseCode.table();
+    /** Bases added between flushes of the packed counts: below 2^16, so no 16-bit field overflows. */
+    private static final int FLUSH = 65_535;
+
     // slots 0-3: A, C, G, T; slot 4: any ambiguous or other byte
     private final long[] n = new long[5];
     private long cg;
-    private int previous = 4;
+    private int previousByte = -1;
     private long run;
     private long longestRun;
 
     /** Adds {@code bases[from, to)}, which must follow what was added before. */
     void add(byte[] bases, int from, int to) {
-        // branch-free counting: bases are close to random, so branches on them would mispredict
-        final byte[] code = CODE;
-        final long[] counts = n;
-        long pairs = cg;
-        int prev = previous;
+        final long[] packed = PACKED;
+        final byte[] cpg = CPG;
+        long pairs = 0;
+        int prev = previousByte < 0 ? 0 : previousByte;
+        for (int chunk = from; chunk < to; chunk += FLUSH) {
+            int end = Math.min(to, chunk + FLUSH);
+            long acc = 0;
+            for (int i = chunk; i < end; i++) {
+                int b = bases[i] & 0xFF;
+                acc += packed[b];
+                pairs += cpg[prev << 8 | b];
+                prev = b;
+            }
+            long a = acc & 0xFFFF;
+            long c = (acc >>> 16) & 0xFFFF;
+            long g = (acc >>> 32) & 0xFFFF;
+            long t = (acc >>> 48) & 0xFFFF;
+            n[0] += a;
+            n[1] += c;
+            n[2] += g;
+            n[3] += t;
+            long other = (end - chunk) - (a + c + g + t);
+            if (other > 0) {
+                n[4] += other;
+                measureRuns(bases, chunk, end);
+            } else {
+                run = 0;
+            }
+        }
+        cg += pairs;
+        if (to > from) {
+            previousByte = bases[to - 1] & 0xFF;
+        }
+    }
+
+    private void measureRuns(byte[] bases, int from, int to) {
         long r = run;
         long longest = longestRun;
         for (int i = from; i < to; i++) {
-            int x = code[bases[i] & 0xFF];
-            x = x < 0 ? 4 : x;
-            counts[x]++;
-            pairs += (prev << 3 | x) == (1 << 3 | 2) ? 1 : 0;
-            r = x == 4 ? r + 1 : 0;
+            int x = CODE[bases[i] & 0xFF];
+            r = x >= 0 && x < 4 ? 0 : r + 1;
             longest = Math.max(longest, r);
-            prev = x;
         }
-        cg = pairs;
-        previous = prev;
         run = r;
         longestRun = longest;
     }
@@ -62,5 +96,26 @@ final class BaseTally {
         double gc = length == 0 ? Double.NaN : (double) gcCount() / length;
         double oe = n[1] == 0 || n[2] == 0 ? Double.NaN : (double) cg * length / ((double) n[1] * n[2]);
         return new Composition(gc, oe);
+    }
+
+    private static long[] packedIncrements() {
+        long[] t = new long[256];
+        byte[] code = BaseCode.table();
+        for (int b = 0; b < 256; b++) {
+            int x = code[b];
+            t[b] = x >= 0 && x < 4 ? 1L << (16 * x) : 0;
+        }
+        return t;
+    }
+
+    private static byte[] cpgPairs() {
+        byte[] t = new byte[1 << 16];
+        byte[] code = BaseCode.table();
+        for (int p = 0; p < 256; p++) {
+            for (int b = 0; b < 256; b++) {
+                t[p << 8 | b] = (byte) (code[p] == 1 && code[b] == 2 ? 1 : 0);
+            }
+        }
+        return t;
     }
 }
