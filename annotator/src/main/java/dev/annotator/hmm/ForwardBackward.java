@@ -192,13 +192,30 @@ public final class ForwardBackward {
             symbols.encode(seq, start, end, sy);
             forwardSpan(sy, len, vec, before == null && b == 0, alpha, start);
             backwardSpan(sy, len, nextSymbol, beta, alpha, post, weighted);
-            for (int i = 0; i < len; i++) {
-                System.arraycopy(em, sy[i] * k, emis, i * k, k);
-            }
+            emissionRows(sy, len, emis);
             sink.block(start, end, post, emis);
             nextSymbol = sy[0];
         }
         return logLik;
+    }
+
+    /** Each base's emission row into {@code emis}; a plain loop, since a copy call per base of 2 values costs more. */
+    private void emissionRows(int[] sy, int len, double[] emis) {
+        final double[] e = em;
+        if (twoStates) {
+            for (int i = 0; i < len; i++) {
+                int y = sy[i] << 1;
+                emis[2 * i] = e[y];
+                emis[2 * i + 1] = e[y + 1];
+            }
+        } else {
+            for (int i = 0, off = 0; i < len; i++, off += k) {
+                int y = sy[i] * k;
+                for (int s = 0; s < k; s++) {
+                    emis[off + s] = e[y + s];
+                }
+            }
+        }
     }
 
     /**
