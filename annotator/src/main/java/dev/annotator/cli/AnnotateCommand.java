@@ -4,21 +4,28 @@ import dev.annotator.decode.DecodeMethod;
 import dev.annotator.decode.ProfileOptions;
 import dev.annotator.error.IoFailureException;
 import dev.annotator.model.HmmModel;
+import dev.annotator.model.InputFingerprint;
+import dev.annotator.model.Label;
 import dev.annotator.model.ModelLoader;
 import dev.annotator.pipeline.AnnotationOptions;
 import dev.annotator.pipeline.AnnotationPipeline;
+import dev.annotator.pipeline.InputFingerprints;
 import dev.annotator.pipeline.ProgressReporter;
 import dev.annotator.pipeline.RunSummary;
+import dev.annotator.report.HtmlReport;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
+import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.ParentCommand;
-import picocli.CommandLine.ParameterException;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 import java.io.IOException;
 import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.List;
 import java.util.Locale;
@@ -149,19 +156,19 @@ final class AnnotateCommand implements Callable<Integer> {
         ProgressReporter reporter = reporter(parent.streams().err());
         HmmModel hmm = ModelLoader.load(model);
         PrintWriter err = parent.streams().err();
-        List<String> reported = hmm.reportedLabels().stream().map(dev.annotator.model.Label::name).toList();
+        List<String> reported = hmm.reportedLabels().stream().map(Label::name).toList();
         if (trackLabel != null && !reported.contains(trackLabel)) {
             throw new ParameterException(spec.commandLine(), "--track-label " + trackLabel
                     + " is not a reported label of model " + hmm.name() + " (reported: " + String.join(", ", reported) + ")");
         }
         String label = trackLabel == null ? reported.get(0) : trackLabel;
         ProfileOptions profile = new ProfileOptions(label, trackStep, posteriorTrack != null,
-                summary != null || report != null, report != null ? dev.annotator.report.HtmlReport.PLOT_POINTS : 0,
+                summary != null || report != null, report != null ? HtmlReport.PLOT_POINTS : 0,
                 summary != null);
-        List<dev.annotator.model.InputFingerprint> fingerprints = new java.util.ArrayList<>();
+        List<InputFingerprint> fingerprints = new ArrayList<>();
         if (report != null) {
-            if (java.nio.file.Files.isRegularFile(java.nio.file.Path.of(model))) {
-                fingerprints.add(dev.annotator.pipeline.InputFingerprints.of(model));
+            if (Files.isRegularFile(Path.of(model))) {
+                fingerprints.add(InputFingerprints.of(model));
             }
         }
         AnnotationPipeline pipeline = new AnnotationPipeline(hmm,
