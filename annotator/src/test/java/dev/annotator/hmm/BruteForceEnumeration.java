@@ -48,12 +48,21 @@ final class BruteForceEnumeration {
         bestProbability = best;
     }
 
-    /** P(path, seq): a missing base emits 1; a context uses only the clean bases since the last missing one. */
+    /** P(path, seq); see {@link #logJoint}. */
     static double joint(HmmParameters p, byte[] seq, int[] path) {
-        double prob = p.start(path[0]);
+        return Math.exp(logJoint(p, seq, path));
+    }
+
+    /**
+     * ln P(path, seq) by the model's definition: start, then per base its transition and emission; a missing base
+     * emits with probability 1, and a context uses only the clean bases since the last missing one (DEVELOPERS.md,
+     * "Kernels"), read through the reduced tables {@link HmmParameters#emission} exposes.
+     */
+    static double logJoint(HmmParameters p, byte[] seq, int[] path) {
+        double log = Math.log(p.start(path[0]));
         for (int t = 0; t < seq.length; t++) {
             if (t > 0) {
-                prob *= p.transition(path[t - 1], path[t]);
+                log += Math.log(p.transition(path[t - 1], path[t]));
             }
             int base = BaseCode.of(seq[t]);
             if (base == BaseCode.MISSING) {
@@ -68,8 +77,8 @@ final class BruteForceEnumeration {
                 weight *= 4;
                 j++;
             }
-            prob *= p.emission(s, j, context, base);
+            log += Math.log(p.emission(s, j, context, base));
         }
-        return prob;
+        return log;
     }
 }

@@ -1,6 +1,5 @@
 package dev.annotator.hmm;
 
-import dev.annotator.seq.BaseCode;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.constraints.DoubleRange;
@@ -55,7 +54,7 @@ class KernelPropertiesTest {
         HmmParameters p = RandomModels.model(rng, states, maxOrder, dense);
         byte[] seq = RandomModels.sequence(rng, length, 0.05);
         ViterbiPath best = new Viterbi(p).decode(seq);
-        double bestLog = logJoint(p, seq, best.states());
+        double bestLog = BruteForceEnumeration.logJoint(p, seq, best.states());
         // the kernel's own score is the joint probability of the path it returns
         assertThat(best.logProbability()).isCloseTo(bestLog, within(1e-9 * Math.max(1, Math.abs(bestLog))));
         double slack = 1e-9 * Math.max(1, Math.abs(bestLog));
@@ -63,37 +62,8 @@ class KernelPropertiesTest {
             // half drawn from the model's own chain, half the best path with a few positions changed: the second
             // kind are the near misses a wrong back-pointer or tie rule would let win
             int[] other = i % 2 == 0 ? sampleChain(p, length, rng) : perturb(best.states(), states, rng);
-            assertThat(logJoint(p, seq, other)).as("sampled path %d", i).isLessThanOrEqualTo(bestLog + slack);
+            assertThat(BruteForceEnumeration.logJoint(p, seq, other)).as("sampled path %d", i).isLessThanOrEqualTo(bestLog + slack);
         }
-    }
-
-    /**
-     * ln P(path, seq) by the model's definition: start, then per base its transition and emission; a missing base
-     * emits with probability 1, and a context uses only the clean bases since the last missing one (DEVELOPERS.md,
-     * "Kernels"), read through the reduced tables {@link HmmParameters#emission} exposes.
-     */
-    static double logJoint(HmmParameters p, byte[] seq, int[] path) {
-        double log = Math.log(p.start(path[0]));
-        for (int t = 0; t < seq.length; t++) {
-            if (t > 0) {
-                log += Math.log(p.transition(path[t - 1], path[t]));
-            }
-            int base = BaseCode.of(seq[t]);
-            if (base == BaseCode.MISSING) {
-                continue;
-            }
-            int s = path[t];
-            int j = 0;
-            int context = 0;
-            int weight = 1;
-            while (j < p.order(s) && t - j - 1 >= 0 && BaseCode.of(seq[t - j - 1]) != BaseCode.MISSING) {
-                context += BaseCode.of(seq[t - j - 1]) * weight;
-                weight *= 4;
-                j++;
-            }
-            log += Math.log(p.emission(s, j, context, base));
-        }
-        return log;
     }
 
     private static int[] sampleChain(HmmParameters p, int length, SplittableRandom rng) {
