@@ -5,7 +5,7 @@ import java.util.List;
 import java.util.SplittableRandom;
 
 /** Random valid parameter sets and sequences for kernel tests. */
-final class RandomModels {
+public final class RandomModels {
     private RandomModels() {
     }
 
@@ -57,7 +57,8 @@ final class RandomModels {
         return new HmmParameters(start, from, to, prob, orders, tables);
     }
 
-    static double[] distribution(SplittableRandom rng, int n) {
+    /** A random probability vector of n entries, none below about 0.05 / n (used across the test packages). */
+    public static double[] distribution(SplittableRandom rng, int n) {
         double[] d = new double[n];
         double sum = 0;
         for (int i = 0; i < n; i++) {

@@ -1,5 +1,6 @@
 package dev.annotator.simulate;
 
+import dev.annotator.hmm.RandomModels;
 import dev.annotator.model.HmmModel;
 import dev.annotator.model.Label;
 import dev.annotator.model.ModelValidator;
@@ -131,7 +132,7 @@ class SimulateAndCountTest {
             int order = rng.nextInt(maxOrder + 1);
             double[] table = new double[4 << (2 * order)];
             for (int row = 0; row < table.length / 4; row++) {
-                System.arraycopy(distribution(rng, 4), 0, table, row * 4, 4);
+                System.arraycopy(RandomModels.distribution(rng, 4), 0, table, row * 4, 4);
             }
             stateList.add(new State("s" + s, "l" + s, order, table));
         }
@@ -144,26 +145,14 @@ class SimulateAndCountTest {
                     to.add(j);
                 }
             }
-            double[] p = distribution(rng, to.size());
+            double[] p = RandomModels.distribution(rng, to.size());
             for (int k = 0; k < to.size(); k++) {
                 transitions.add(new Transition("s" + i, "s" + to.get(k), p[k]));
             }
         }
-        double[] start = distribution(rng, states);
+        double[] start = RandomModels.distribution(rng, states);
         return new HmmModel("random", "an invented random model", new Provenance("invented for tests", List.of()),
                 labels, stateList, start, transitions);
     }
 
-    private static double[] distribution(SplittableRandom rng, int n) {
-        double[] d = new double[n];
-        double sum = 0;
-        for (int i = 0; i < n; i++) {
-            d[i] = 0.05 + rng.nextDouble();
-            sum += d[i];
-        }
-        for (int i = 0; i < n; i++) {
-            d[i] /= sum;
-        }
-        return d;
-    }
 }

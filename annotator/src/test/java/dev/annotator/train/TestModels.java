@@ -1,5 +1,6 @@
 package dev.annotator.train;
 
+import dev.annotator.hmm.RandomModels;
 import dev.annotator.model.HmmModel;
 import dev.annotator.model.Label;
 import dev.annotator.model.ModelValidator;
@@ -82,7 +83,7 @@ final class TestModels {
                 allowed[j] = j == s || j == s + 1 || dense || rng.nextDouble() < 0.6;
                 count += allowed[j] ? 1 : 0;
             }
-            double[] row = distribution(rng, count);
+            double[] row = RandomModels.distribution(rng, count);
             int c = 0;
             for (int j = 0; j < k; j++) {
                 a[s][j] = allowed[j] ? row[c++] : -1;
@@ -91,24 +92,11 @@ final class TestModels {
             int rows = 1 << (2 * orders[s]);
             e[s] = new double[rows * 4];
             for (int r = 0; r < rows; r++) {
-                System.arraycopy(distribution(rng, 4), 0, e[s], r * 4, 4);
+                System.arraycopy(RandomModels.distribution(rng, 4), 0, e[s], r * 4, 4);
             }
         }
-        return labelOf == null ? model(names, distribution(rng, k), a, orders, e)
-                : model(names, labelOf, distribution(rng, k), a, orders, e);
-    }
-
-    static double[] distribution(SplittableRandom rng, int n) {
-        double[] d = new double[n];
-        double sum = 0;
-        for (int i = 0; i < n; i++) {
-            d[i] = 0.05 + rng.nextDouble();
-            sum += d[i];
-        }
-        for (int i = 0; i < n; i++) {
-            d[i] /= sum;
-        }
-        return d;
+        return labelOf == null ? model(names, RandomModels.distribution(rng, k), a, orders, e)
+                : model(names, labelOf, RandomModels.distribution(rng, k), a, orders, e);
     }
 
     static byte[] sequence(SplittableRandom rng, int length) {
