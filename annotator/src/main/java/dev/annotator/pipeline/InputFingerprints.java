@@ -11,9 +11,6 @@ import java.nio.file.Files;
 import java.nio.file.InvalidPathException;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
-import java.security.MessageDigest;
-import java.security.NoSuchAlgorithmException;
-import java.util.HexFormat;
 
 /** Size and SHA-256 of an input file as stored (compressed or not), for a trained model's provenance. */
 public final class InputFingerprints {
@@ -33,19 +30,12 @@ public final class InputFingerprints {
         if (Files.isDirectory(path)) {
             throw new MissingInputException(name + ": is a directory");
         }
-        MessageDigest sha;
-        try {
-            sha = MessageDigest.getInstance("SHA-256");
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException("every Java platform has SHA-256", e);
-        }
-        long bytes = 0;
+        StreamFingerprint fingerprint = new StreamFingerprint();
         byte[] buf = new byte[1 << 16];
         try (InputStream in = Files.newInputStream(path)) {
             int n;
             while ((n = in.read(buf)) > 0) {
-                sha.update(buf, 0, n);
-                bytes += n;
+                fingerprint.consumed(buf, 0, n);
             }
         } catch (NoSuchFileException e) {
             throw new MissingInputException(name + ": no such file");
@@ -54,6 +44,6 @@ public final class InputFingerprints {
         } catch (IOException e) {
             throw new IoFailureException(name + ": read failed: " + e.getMessage(), e);
         }
-        return new InputFingerprint(name, bytes, HexFormat.of().formatHex(sha.digest()));
+        return fingerprint.finish(name);
     }
 }

@@ -7,10 +7,6 @@ package dev.annotator.pipeline;
  */
 public record RunSummary(int records, long bases, int segments, double seconds,
                          dev.annotator.model.InputFingerprint inputFingerprint) {
-    public RunSummary(int records, long bases, int segments, double seconds) {
-        this(records, bases, segments, seconds, null);
-    }
-
     public double megabasesPerSecond() {
         return seconds > 0 ? bases / seconds / 1e6 : Double.NaN;
     }
