@@ -65,8 +65,10 @@ final class AnnotateCommand implements Callable<Integer> {
     @Option(names = "--force", description = "Replace the output file if it exists (default: refuse).")
     boolean force;
 
-    @Option(names = "--decode", paramLabel = "METHOD", defaultValue = "posterior", converter = DecodeMethodConverter.class,
-            description = "posterior (default) or viterbi.")
+    @Option(names = "--decode", paramLabel = "METHOD", converter = DecodeMethodConverter.class,
+            description = "posterior, viterbi or posterior-viterbi (the allowed path of largest summed posterior). "
+                    + "Default: posterior-viterbi for models with a label of several states (gene models), else "
+                    + "posterior.")
     DecodeMethod decode;
 
     @Option(names = "--min-length", paramLabel = "BP", defaultValue = "0",
@@ -172,7 +174,8 @@ final class AnnotateCommand implements Callable<Integer> {
             }
         }
         AnnotationPipeline pipeline = new AnnotationPipeline(hmm,
-                new AnnotationOptions(decode, minLength, n, idPrefix, profile));
+                new AnnotationOptions(decode == null ? DecodeMethod.defaultFor(hmm) : decode, minLength, n, idPrefix,
+                        profile));
         RunSummary run;
         try (OutputTarget out = OutputTarget.open(output, parent.streams().out(), force);
              SideOutputs side = SideOutputs.open(hmm, summary, posteriorTrack, label, trackStep, report, force)) {

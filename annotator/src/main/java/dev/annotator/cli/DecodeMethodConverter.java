@@ -13,7 +13,9 @@ final class DecodeMethodConverter implements ITypeConverter<DecodeMethod> {
         return switch (value.toLowerCase(Locale.ROOT)) {
             case "posterior" -> DecodeMethod.POSTERIOR;
             case "viterbi" -> DecodeMethod.VITERBI;
-            default -> throw new TypeConversionException("expected posterior or viterbi, got '" + value + "'");
+            case "posterior-viterbi" -> DecodeMethod.POSTERIOR_VITERBI;
+            default -> throw new TypeConversionException("expected posterior, viterbi or posterior-viterbi, got '"
+                    + value + "'");
         };
     }
 }

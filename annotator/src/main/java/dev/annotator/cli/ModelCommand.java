@@ -11,13 +11,17 @@ import picocli.CommandLine.Model.CommandSpec;
 /** Groups commands that work on one model file. */
 @Command(name = "model", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
         description = "Work with a model file.",
-        subcommands = ModelCommand.Check.class,
+        subcommands = {ModelCommand.Check.class, GeneTopologyCommand.class},
         footerHeading = "%n",
-        footer = {"Examples:", "  annotator model check cpg-island", "  annotator model check my-model.json", "",
+        footer = {"Examples:", "  annotator model check cpg-island", "  annotator model check my-model.json",
+                "  annotator model gene-topology -o start.json", "",
                 Caution.TEXT})
 final class ModelCommand implements java.util.concurrent.Callable<Integer> {
     @Spec
     CommandSpec spec;
+
+    @picocli.CommandLine.ParentCommand
+    AnnotatorCommand parent;
 
     /** Without a subcommand there is nothing to do: show the usage on stderr and fail as a usage error. */
     @Override

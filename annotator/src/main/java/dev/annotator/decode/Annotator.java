@@ -3,8 +3,8 @@ package dev.annotator.decode;
 import dev.annotator.hmm.BoundaryVectors;
 import dev.annotator.hmm.ForwardBackward;
 import dev.annotator.hmm.HmmParameters;
+import dev.annotator.hmm.PosteriorViterbi;
 import dev.annotator.hmm.Viterbi;
-import dev.annotator.hmm.ViterbiPath;
 import dev.annotator.model.HmmModel;
 import dev.annotator.model.Label;
 import dev.annotator.model.ModelCompiler;
@@ -33,6 +33,7 @@ public final class Annotator {
     private final int minLength;
     private final ForwardBackward forwardBackward;
     private final Viterbi viterbi;
+    private final PosteriorViterbi posteriorViterbi;
     private final int window;
     private final ProfileOptions profile;
     private final int trackLabel;
@@ -68,6 +69,7 @@ public final class Annotator {
         this.minLength = minLength;
         this.forwardBackward = new ForwardBackward(parameters);
         this.viterbi = method == DecodeMethod.VITERBI ? new Viterbi(parameters) : null;
+        this.posteriorViterbi = method == DecodeMethod.POSTERIOR_VITERBI ? new PosteriorViterbi(parameters) : null;
         this.profile = profile;
         this.trackLabel = trackLabelIndex(labels, profile.trackLabel());
         this.stateToReported = new int[model.stateCount()];
@@ -101,8 +103,8 @@ public final class Annotator {
      * Decodes one record. Posterior decoding splits records longer than {@link #WINDOW} bases into windows at
      * fixed positions (multiples of {@link #WINDOW}, whatever the thread count, so output never depends on it);
      * each window gets its boundary vectors from {@link BoundaryVectors} and the windows run in parallel when
-     * called from a fork-join pool (as {@code AnnotationPipeline} does with more than one thread). Viterbi
-     * decoding runs the record's path in one piece.
+     * called from a fork-join pool (as {@code AnnotationPipeline} does with more than one thread). Viterbi and
+     * posterior-Viterbi decoding run the record's path in one piece.
      *
      * @throws dev.annotator.hmm.ImpossibleSequenceException if no state path of the model can emit the record
      */
@@ -120,9 +122,11 @@ public final class Annotator {
         double logLik;
         List<WindowProfile> windowProfiles = null;
         int k = parameters.stateCount();
-        if (method == DecodeMethod.VITERBI) {
-            ViterbiPath path = viterbi.decode(bases);
-            PathRuns runs = new PathRuns(labels, path.path(), stateToReported, k);
+        byte[] statePath = null;
+        if (method != DecodeMethod.POSTERIOR) {
+            statePath = method == DecodeMethod.VITERBI ? viterbi.decode(bases).path()
+                    : posteriorViterbi.decode(bases).path();
+            PathRuns runs = new PathRuns(labels, statePath, stateToReported, k);
             if (profile.any()) {
                 WindowProfile whole = new WindowProfile(labels, trackLabel, profile, 0, bases.length, bases.length, k);
                 logLik = forwardBackward.run(bases, (s, e, p, em) -> {
@@ -168,13 +172,24 @@ public final class Annotator {
             Label label = labels.labels().get(r.label());
             Composition composition = label.composition()
                     ? CompositionCounter.of(bases, r.start0(), r.endExclusive()) : null;
-            segments.add(r.stats().toSegment(label.name(), r.start0(), r.endExclusive(), composition));
+            GeneDetails gene = label.stranded() ? GeneDetails.of(label.strand(), bases, r.start0(), r.endExclusive(),
+                    fivePrimeCodonPosition(statePath, label.strand(), r)) : null;
+            segments.add(r.stats().toSegment(label.name(), r.start0(), r.endExclusive(), composition, gene));
         }
         List<String> order = labels.labels().stream().map(Label::name).toList();
         segments.sort(Comparator.comparingInt(Segment::start).thenComparingInt(s -> order.indexOf(s.label())));
         RecordProfile recordProfile = windowProfiles == null ? null
                 : RecordProfiles.join(profile, labels, trackLabel, bases, windowProfiles);
         return new RecordAnnotation(record.name(), bases.length, logLik, segments, recordProfile);
+    }
+
+    /** Codon position of the path's state at a gene's 5'-most base; 0 without a path. */
+    private int fivePrimeCodonPosition(byte[] path, char strand, RawSegment r) {
+        if (path == null) {
+            return 0;
+        }
+        int at = strand == '+' ? r.start0() : r.endExclusive() - 1;
+        return model.states().get(path[at] & 0xFF).codonPosition();
     }
 
     /** Posterior decoding of the bases [start, end) of one record, with exact boundary vectors. */

@@ -11,9 +11,15 @@ package dev.annotator.decode;
  * @param logOddsBits   log2 likelihood ratio of the segment's bases under the label's states against the other
  *                      states
  * @param composition   for labels marked {@code composition}, else null
+ * @param gene          for labels with a strand (genes), else null
  */
 public record Segment(String label, int start, int end, double meanPosterior, double minPosterior,
-                      double logOddsBits, Composition composition) {
+                      double logOddsBits, Composition composition, GeneDetails gene) {
+
+    public Segment(String label, int start, int end, double meanPosterior, double minPosterior, double logOddsBits,
+                   Composition composition) {
+        this(label, start, end, meanPosterior, minPosterior, logOddsBits, composition, null);
+    }
 
     public int length() {
         return end - start + 1;

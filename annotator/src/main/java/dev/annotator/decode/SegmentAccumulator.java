@@ -96,8 +96,8 @@ final class SegmentAccumulator {
         return eIn > 0 && eOut > 0 ? eIn / eOut : 1;
     }
 
-    Segment toSegment(String label, int start0, int endExclusive, Composition composition) {
+    Segment toSegment(String label, int start0, int endExclusive, Composition composition, GeneDetails gene) {
         return new Segment(label, start0 + 1, endExclusive, posteriorSum / count, posteriorMin, logOdds / LOG2,
-                composition);
+                composition, gene);
     }
 }

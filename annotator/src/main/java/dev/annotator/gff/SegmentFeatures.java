@@ -1,6 +1,7 @@
 package dev.annotator.gff;
 
 import dev.annotator.decode.Composition;
+import dev.annotator.decode.GeneDetails;
 import dev.annotator.decode.RecordAnnotation;
 import dev.annotator.decode.Segment;
 import dev.annotator.model.Label;
@@ -18,6 +19,9 @@ import java.util.Map;
  * {@code cpg_oe} (3 decimals). Attribute names start lowercase because the GFF3 specification reserves
  * uppercase-initial names (v1.26, Column 9). A number that is not finite (cpg_oe without C or G, log odds of a
  * base the other states cannot emit) is left out rather than written as text a reader cannot parse.
+ *
+ * <p>Segments of a label with a strand are genes: each becomes a {@code gene} and its {@code CDS} (see
+ * {@link #called}).
  */
 public final class SegmentFeatures {
     /** Column 2 of every feature this tool writes. */
@@ -37,6 +41,10 @@ public final class SegmentFeatures {
         List<Gff3Feature> out = new ArrayList<>(annotation.segments().size());
         for (Segment s : annotation.segments()) {
             Label label = reported(s.label());
+            if (s.gene() != null) {
+                gene(annotation.seqid(), s, label, ids, out);
+                continue;
+            }
             List<Map.Entry<String, List<String>>> attrs = new ArrayList<>(5);
             attrs.add(Map.entry("ID", List.of(ids.next(label.name()))));
             addNumber(attrs, "posterior_min", s.minPosterior(), 3);
@@ -50,6 +58,44 @@ public final class SegmentFeatures {
                     s.meanPosterior(), '.', ".", attrs));
         }
         return out;
+    }
+
+    /**
+     * A gene segment as a {@code gene} with one child of the label's type ({@code CDS}) joined by {@code Parent},
+     * both spanning the start and the stop codon, on the gene's strand; the CDS carries the phase and the
+     * attributes {@code start_codon} and {@code partial} ({@code 5'} and/or {@code 3'} for a gene that runs off the
+     * end of its record).
+     */
+    private static void gene(String seqid, Segment s, Label label, FeatureIdAllocator ids, List<Gff3Feature> out) {
+        GeneDetails g = s.gene();
+        String geneId = ids.next("gene");
+        List<String> partial = new ArrayList<>(2);
+        if (g.partial5()) {
+            partial.add("5'");
+        }
+        if (g.partial3()) {
+            partial.add("3'");
+        }
+        List<Map.Entry<String, List<String>>> geneAttrs = new ArrayList<>(2);
+        geneAttrs.add(Map.entry("ID", List.of(geneId)));
+        if (!partial.isEmpty()) {
+            geneAttrs.add(Map.entry("partial", partial));
+        }
+        out.add(new Gff3Feature(seqid, SOURCE, "gene", s.start(), s.end(), s.meanPosterior(), g.strand(), ".",
+                geneAttrs));
+        List<Map.Entry<String, List<String>>> attrs = new ArrayList<>(6);
+        attrs.add(Map.entry("ID", List.of(ids.next(label.featureType().toLowerCase(java.util.Locale.ROOT)))));
+        attrs.add(Map.entry("Parent", List.of(geneId)));
+        addNumber(attrs, "posterior_min", s.minPosterior(), 3);
+        addNumber(attrs, "log_odds", s.logOddsBits(), 2);
+        if (g.startCodon() != null) {
+            attrs.add(Map.entry("start_codon", List.of(g.startCodon())));
+        }
+        if (!partial.isEmpty()) {
+            attrs.add(Map.entry("partial", partial));
+        }
+        out.add(new Gff3Feature(seqid, SOURCE, label.featureType(), s.start(), s.end(), s.meanPosterior(), g.strand(),
+                Integer.toString(g.phase()), attrs));
     }
 
     /** A planted (truth) segment of a simulated record: no score, only an {@code ID}. */

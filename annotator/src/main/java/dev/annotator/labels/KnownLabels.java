@@ -25,8 +25,16 @@ public final class KnownLabels {
     private final String[] labelNames;
     private final int background;
     private final Map<String, List<LabelledInterval>> bySeqid;
+    private final Map<String, List<LabelledInterval>> excluded;
 
     KnownLabels(String fileName, HmmModel model, Map<String, List<LabelledInterval>> features) {
+        this(fileName, model, features, Map.of());
+    }
+
+    /** @param excluded per seqid, sorted disjoint spans whose bases are left out of training */
+    KnownLabels(String fileName, HmmModel model, Map<String, List<LabelledInterval>> features,
+                Map<String, List<LabelledInterval>> excluded) {
+        this.excluded = excluded;
         if (model.labels().size() > MAX_LABELS) {
             throw new BadInputException(fileName + ": model " + model.name() + " has " + model.labels().size()
                     + " labels; training with labels supports at most " + MAX_LABELS);
@@ -105,6 +113,26 @@ public final class KnownLabels {
                         + " lies outside record " + f.seqid() + " (" + length + " bases)");
             }
         }
+    }
+
+    /**
+     * The parts of a record that are trained on: [from, to) 0-based pairs between the excluded spans, in order
+     * (the whole record when nothing is excluded).
+     */
+    public List<int[]> pieces(String seqid, int length) {
+        List<int[]> out = new ArrayList<>();
+        int from = 0;
+        for (LabelledInterval x : excluded.getOrDefault(seqid, List.of())) {
+            int to = (int) Math.min(length, x.start() - 1);
+            if (to > from) {
+                out.add(new int[]{from, to});
+            }
+            from = (int) Math.max(from, Math.min(length, x.end()));
+        }
+        if (length > from || out.isEmpty()) {
+            out.add(new int[]{from, Math.max(from, length)});
+        }
+        return out;
     }
 
     /** Label index of every base of a record: the background label where no feature lies. */

@@ -28,19 +28,47 @@ import java.util.function.Consumer;
 public final class LabelGff3Reader {
     private final HmmModel model;
     private final Map<String, Integer> labelByType = new HashMap<>();
+    private final Map<String, Integer> forwardByType = new HashMap<>();
+    private final Map<String, Integer> reverseByType = new HashMap<>();
 
     public LabelGff3Reader(HmmModel model) {
         this.model = model;
         List<Label> labels = model.labels();
         for (int i = 0; i < labels.size(); i++) {
             Label l = labels.get(i);
+            Map<String, Integer> map = switch (l.strand()) {
+                case '+' -> forwardByType;
+                case '-' -> reverseByType;
+                default -> labelByType;
+            };
             if (l.featureType() != null) {
-                labelByType.putIfAbsent(l.featureType(), i);
+                map.putIfAbsent(l.featureType(), i);
             }
             if (l.soAccession() != null) {
-                labelByType.putIfAbsent(l.soAccession(), i);
+                map.putIfAbsent(l.soAccession(), i);
             }
         }
+    }
+
+    /**
+     * The label of a feature of this type and strand (GFF3 column 7), or null when the type is no label. Types of
+     * labels with a strand (genes on one strand) need a strand of + or -.
+     */
+    private Integer labelOf(String type, String strand, String where) {
+        Integer plain = labelByType.get(type);
+        if (plain != null) {
+            return plain;
+        }
+        if (!forwardByType.containsKey(type) && !reverseByType.containsKey(type)) {
+            return null;
+        }
+        Integer stranded = switch (strand) {
+            case "+" -> forwardByType.get(type);
+            case "-" -> reverseByType.get(type);
+            default -> throw new BadInputException(where + "feature of type " + type + " needs strand + or - (column 7"
+                    + " is '" + strand + "'): model " + model.name() + " has a label for each strand");
+        };
+        return stranded;
     }
 
     /**
@@ -50,16 +78,28 @@ public final class LabelGff3Reader {
      * @throws BadInputException malformed lines, features of different labels that overlap
      */
     public KnownLabels read(String path, Consumer<String> warnings) {
+        return readFeatures(path, warnings).known(model);
+    }
+
+    /**
+     * Reads a labels file (plain or gzipped) into its labelled features, before the one-label-per-base check of
+     * {@link KnownLabels} (so that overlapping genes can be screened first).
+     */
+    public LabelledFeatures readFeatures(String path, Consumer<String> warnings) {
         String name = InputOpener.displayName(path);
         try (InputStream in = InputOpener.open(path, InputStream.nullInputStream());
              BufferedReader reader = new BufferedReader(new InputStreamReader(in, StandardCharsets.UTF_8), 1 << 16)) {
-            return read(reader, name, warnings);
+            return readFeatures(reader, name, warnings);
         } catch (IOException e) {
             throw new IoFailureException(name + ": read failed: " + e.getMessage(), e);
         }
     }
 
     KnownLabels read(BufferedReader reader, String name, Consumer<String> warnings) throws IOException {
+        return readFeatures(reader, name, warnings).known(model);
+    }
+
+    LabelledFeatures readFeatures(BufferedReader reader, String name, Consumer<String> warnings) throws IOException {
         Map<String, List<LabelledInterval>> bySeqid = new TreeMap<>();
         Map<String, Long> skippedTypes = new TreeMap<>();
         String text;
@@ -87,7 +127,7 @@ public final class LabelGff3Reader {
             if (end < start) {
                 throw new BadInputException(where + "end " + end + " is before start " + start);
             }
-            Integer label = labelByType.get(type);
+            Integer label = labelOf(type, col[6], where);
             if (label == null) {
                 skippedTypes.merge(type, 1L, Long::sum);
                 continue;
@@ -101,7 +141,7 @@ public final class LabelGff3Reader {
             warnings.accept(name + ": skipped features of types that are no label of model " + model.name() + ": "
                     + String.join(", ", parts));
         }
-        return new KnownLabels(name, model, bySeqid);
+        return new LabelledFeatures(name, bySeqid);
     }
 
     private static long coordinate(String s, String where, String what) {

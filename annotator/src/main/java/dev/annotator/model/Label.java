@@ -7,6 +7,25 @@ package dev.annotator.model;
  *
  * @param composition whether segments of this label carry the composition attributes {@code gc} and
  *                    {@code cpg_oe} (meant for island-type labels)
+ * @param strand      {@code '+'} or {@code '-'} for a label whose states read one strand (a gene on the forward
+ *                    or the reverse strand); {@code '.'} for a label without a strand
  */
-public record Label(String name, String featureType, String soAccession, boolean background, boolean composition) {
+public record Label(String name, String featureType, String soAccession, boolean background, boolean composition,
+                    char strand) {
+
+    public Label {
+        if (strand != '.' && strand != '+' && strand != '-') {
+            throw new IllegalArgumentException("strand must be '+', '-' or '.', got " + strand);
+        }
+    }
+
+    /** A label without a strand. */
+    public Label(String name, String featureType, String soAccession, boolean background, boolean composition) {
+        this(name, featureType, soAccession, background, composition, '.');
+    }
+
+    /** Whether the label reads one strand (its segments are genes on that strand). */
+    public boolean stranded() {
+        return strand != '.';
+    }
 }

@@ -24,8 +24,9 @@ final class ModelTreeReader {
             "bases", "iterations");
     private static final List<String> FINGERPRINT = List.of("name", "bytes", "sha256");
     private static final List<String> LABEL = List.of("name", "feature_type", "so_accession", "background",
-            "composition");
-    private static final List<String> STATE = List.of("name", "label", "order", "emissions");
+            "composition", "strand");
+    private static final List<String> STATE = List.of("name", "label", "order", "emissions", "codon_position");
+    private static final List<String> STATE_REQUIRED = List.of("name", "label", "order", "emissions");
     private static final List<String> TRANSITION = List.of("from", "to", "p");
 
     private final String file;
@@ -127,14 +128,19 @@ final class ModelTreeReader {
     private Label label(JsonNode node, String path) {
         requireObject(node, path);
         requireFields(node, path, LABEL, List.of("name"));
+        String strand = optionalText(node, "strand", path);
+        if (strand != null && !strand.equals("+") && !strand.equals("-")) {
+            throw fail("label " + ModelValidator.quote(text(node, "name", path)) + ": strand "
+                    + ModelValidator.quote(strand) + " is not \"+\" or \"-\"");
+        }
         return new Label(text(node, "name", path), optionalText(node, "feature_type", path),
                 optionalText(node, "so_accession", path), flag(node, "background", path),
-                flag(node, "composition", path));
+                flag(node, "composition", path), strand == null ? '.' : strand.charAt(0));
     }
 
     private State state(JsonNode node, String path) {
         requireObject(node, path);
-        requireFields(node, path, STATE, STATE);
+        requireFields(node, path, STATE, STATE_REQUIRED);
         String name = text(node, "name", path);
         String label = text(node, "label", path);
         JsonNode orderNode = node.get("order");
@@ -183,7 +189,21 @@ final class ModelTreeReader {
                 table[row * 4 + b] = number(values.get(b), rowPath + "[" + b + "]");
             }
         }
-        return new State(name, label, order, table);
+        return new State(name, label, order, table, codonPosition(node, path, where));
+    }
+
+    private int codonPosition(JsonNode node, String path, String where) {
+        JsonNode n = node.get("codon_position");
+        if (n == null) {
+            return 0;
+        }
+        if (!n.isIntegralNumber()) {
+            throw wrongType(path + ".codon_position", "an integer", n);
+        }
+        if (!n.canConvertToInt() || n.intValue() < 1 || n.intValue() > 3) {
+            throw fail(where + "codon_position " + n + " is not 1, 2 or 3");
+        }
+        return n.intValue();
     }
 
     private double[] start(JsonNode node, List<State> states) {

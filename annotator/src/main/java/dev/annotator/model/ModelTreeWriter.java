@@ -61,6 +61,9 @@ final class ModelTreeWriter {
             if (l.composition()) {
                 n.put("composition", true);
             }
+            if (l.stranded()) {
+                n.put("strand", String.valueOf(l.strand()));
+            }
         }
 
         ArrayNode states = root.putArray("states");
@@ -69,6 +72,9 @@ final class ModelTreeWriter {
             n.put("name", s.name());
             n.put("label", s.label());
             n.put("order", s.order());
+            if (s.codonPosition() != 0) {
+                n.put("codon_position", s.codonPosition());
+            }
             ObjectNode emissions = n.putObject("emissions");
             int rows = EmissionContexts.count(s.order());
             for (int r = 0; r < rows; r++) {

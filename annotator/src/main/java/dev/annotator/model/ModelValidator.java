@@ -150,6 +150,9 @@ public final class ModelValidator {
             if (l.soAccession() != null && !SO_ACCESSION.matcher(l.soAccession()).matches()) {
                 throw fail(where + "so_accession " + quote(l.soAccession()) + " is not of the form SO:0000000");
             }
+            if (l.background() && l.stranded()) {
+                throw fail(where + "the background label has no strand");
+            }
         }
     }
 
@@ -170,6 +173,9 @@ public final class ModelValidator {
             String where = "state " + quote(s.name()) + ": ";
             if (s.label() == null || model.labelIndex(s.label()) < 0) {
                 throw fail(where + "unknown label " + quote(s.label()));
+            }
+            if (s.codonPosition() != 0 && !model.labels().get(model.labelIndex(s.label())).stranded()) {
+                throw fail(where + "codon_position needs a label with a strand (label " + quote(s.label()) + ")");
             }
             // the order is checked before its table size is computed: 4^order overflows for large orders
             if (s.order() < 0 || s.order() > MAX_ORDER) {

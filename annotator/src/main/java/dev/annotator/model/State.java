@@ -7,10 +7,18 @@ import java.util.Arrays;
  * preceding bases. {@code emissions} holds 4^k rows of 4 (A, C, G, T), rows ordered by the context read as a
  * base-4 number with the oldest base most significant (order 1: rows A, C, G, T; order 2: AA, AC, ... TT).
  */
-public record State(String name, String label, int order, double[] emissions) {
+public record State(String name, String label, int order, double[] emissions, int codonPosition) {
 
     public State {
         emissions = emissions.clone();
+        if (codonPosition < 0 || codonPosition > 3) {
+            throw new IllegalArgumentException("codon position must be 0 (none) or 1..3, got " + codonPosition);
+        }
+    }
+
+    /** A state that is no codon position. */
+    public State(String name, String label, int order, double[] emissions) {
+        this(name, label, order, emissions, 0);
     }
 
     @Override
@@ -26,7 +34,7 @@ public record State(String name, String label, int order, double[] emissions) {
     @Override
     public boolean equals(Object o) {
         return o instanceof State s && s.name.equals(name) && s.label.equals(label) && s.order == order
-                && Arrays.equals(s.emissions, emissions);
+                && s.codonPosition == codonPosition && Arrays.equals(s.emissions, emissions);
     }
 
     @Override

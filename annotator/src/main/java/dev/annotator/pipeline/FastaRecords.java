@@ -22,6 +22,7 @@ final class FastaRecords implements Iterator<CountItem>, AutoCloseable {
     private int file = -1;
     private FastaRecordReader reader;
     private CountItem next;
+    private final java.util.ArrayDeque<CountItem> pending = new java.util.ArrayDeque<>();
 
     /**
      * @param labels   null for no labels
@@ -36,6 +37,10 @@ final class FastaRecords implements Iterator<CountItem>, AutoCloseable {
     @Override
     public boolean hasNext() {
         while (next == null) {
+            if (!pending.isEmpty()) {
+                next = pending.poll();
+                break;
+            }
             if (reader == null) {
                 if (++file >= inputs.size()) {
                     return false;
@@ -48,10 +53,28 @@ final class FastaRecords implements Iterator<CountItem>, AutoCloseable {
                 reader = null;
             } else {
                 String where = inputs.get(file) + ": record " + r.name();
-                next = new CountItem(where, r.bases(), labels == null ? null : labels.labelsOf(r.name(), r.length()));
+                if (labels == null) {
+                    next = new CountItem(where, r.bases(), null);
+                } else {
+                    split(where, r);
+                }
             }
         }
         return true;
+    }
+
+    /** A labelled record, cut around the spans its labels leave out of training. */
+    private void split(String where, SequenceRecord r) {
+        byte[] classes = labels.labelsOf(r.name(), r.length());
+        List<int[]> pieces = labels.pieces(r.name(), r.length());
+        if (pieces.size() == 1 && pieces.get(0)[0] == 0 && pieces.get(0)[1] == r.length()) {
+            pending.add(new CountItem(where, r.bases(), classes));
+            return;
+        }
+        for (int[] p : pieces) {
+            pending.add(new CountItem(where + " (bases " + (p[0] + 1) + ".." + p[1] + ")",
+                    java.util.Arrays.copyOfRange(r.bases(), p[0], p[1]), java.util.Arrays.copyOfRange(classes, p[0], p[1])));
+        }
     }
 
     @Override

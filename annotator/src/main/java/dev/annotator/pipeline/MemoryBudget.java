@@ -25,10 +25,11 @@ record MemoryBudget(RecordLengthLimit recordLimit, long basesInFlight) {
     static final int USABLE_PERCENT = 80;
 
     static MemoryBudget of(long maxHeapBytes, int states, DecodeMethod method) {
-        long decodeBytesPerBase = 1 + (method == DecodeMethod.VITERBI ? states + 1L : 0);
+        boolean pathInMemory = method != DecodeMethod.POSTERIOR;
+        long decodeBytesPerBase = 1 + (pathInMemory ? states + 1L : 0);
         long usable = maxHeapBytes / 100 * USABLE_PERCENT;
         long bases = usable / (READ_BYTES_PER_BASE + decodeBytesPerBase);
-        if (method == DecodeMethod.VITERBI) {
+        if (pathInMemory) {
             // the back-pointer table of bases x states is one Java array
             bases = Math.min(bases, RecordLengthLimit.ARRAY_MAX / states);
         }

@@ -2,6 +2,10 @@ package dev.annotator.pipeline;
 
 import dev.annotator.error.BadInputException;
 import dev.annotator.labels.KnownLabels;
+import dev.annotator.labels.LabelledFeatures;
+import dev.annotator.labels.LabelledInterval;
+import dev.annotator.train.WholeFeatureScreen;
+import java.util.TreeMap;
 import dev.annotator.labels.LabelGff3Reader;
 import dev.annotator.model.HmmModel;
 import dev.annotator.model.InputFingerprint;
@@ -115,7 +119,7 @@ public final class TrainingPipeline {
      *                  one labels file for all shards, so it checks only the records it has
      */
     private Prepared prepare(boolean allSeqids) {
-        if (options.method() == TrainingMethod.COUNTING) {
+        if (options.method() == TrainingMethod.COUNTING && !WholeFeatureScreen.applies(start)) {
             requireOneStatePerLabel();
         }
         List<InputFingerprint> fingerprints = new ArrayList<>();
@@ -126,10 +130,62 @@ public final class TrainingPipeline {
             return new Prepared(fingerprints, List.of(), null);
         }
         InputFingerprint labelFile = InputFingerprints.of(labelsPath);
-        KnownLabels labels = new LabelGff3Reader(start).read(labelsPath, warnings);
-        labels.checkAgainst(recordLengths(), inputs.size() == 1 ? inputs.get(0)
+        LabelledFeatures features = new LabelGff3Reader(start).readFeatures(labelsPath, warnings);
+        Map<String, Integer> lengths = new HashMap<>();
+        if (WholeFeatureScreen.applies(start)) {
+            features = screenGenes(features, lengths);
+        } else {
+            lengths = recordLengths();
+        }
+        KnownLabels labels = features.known(start);
+        labels.checkAgainst(lengths, inputs.size() == 1 ? inputs.get(0)
                 : "the inputs (" + String.join(", ", inputs) + ")", allSeqids);
         return new Prepared(fingerprints, List.of(labelFile), labels);
+    }
+
+    /**
+     * For a gene model: keeps the labelled genes it can be trained on (see {@link WholeFeatureScreen}), reading
+     * every record once, and fills {@code lengths} with the records' names and lengths. Says in one warning line
+     * how many genes were left out and why.
+     */
+    private LabelledFeatures screenGenes(LabelledFeatures features, Map<String, Integer> lengths) {
+        WholeFeatureScreen screen = new WholeFeatureScreen(start);
+        Map<String, List<LabelledInterval>> kept = new TreeMap<>(features.bySeqid());
+        Map<String, List<LabelledInterval>> leftOut = new TreeMap<>();
+        int stranded = 0;
+        int notEmittable = 0;
+        int overlapping = 0;
+        for (String input : inputs) {
+            try (FastaRecordReader reader = FastaRecordReader.open(input, InputStream.nullInputStream(), w -> { })) {
+                SequenceRecord r;
+                while ((r = reader.next()) != null) {
+                    if (lengths.putIfAbsent(r.name(), r.length()) != null || !kept.containsKey(r.name())) {
+                        continue;
+                    }
+                    int length = r.length();
+                    List<LabelledInterval> inside = new ArrayList<>();
+                    List<LabelledInterval> outside = new ArrayList<>();
+                    for (LabelledInterval f : kept.get(r.name())) {
+                        (f.end() <= length ? inside : outside).add(f);
+                    }
+                    WholeFeatureScreen.Outcome o = screen.screen(r.bases(), inside);
+                    List<LabelledInterval> out = new ArrayList<>(o.kept());
+                    out.addAll(outside); // left for the inside-the-record check to report
+                    kept.put(r.name(), out);
+                    leftOut.put(r.name(), o.excluded());
+                    stranded += o.stranded();
+                    notEmittable += o.notEmittable();
+                    overlapping += o.overlapping();
+                }
+            }
+        }
+        if (notEmittable + overlapping > 0) {
+            warnings.accept(features.fileName() + ": trained on " + (stranded - notEmittable - overlapping) + " of "
+                    + stranded + " genes; left out " + notEmittable + " the model cannot emit (a start or stop codon "
+                    + "it does not allow, a stop inside, or a length that is not a whole number of codons) and "
+                    + overlapping + " that overlap or touch another gene (their bases are left out of training)");
+        }
+        return features.with(kept, leftOut);
     }
 
     /** Names and lengths of all records, read before training so that label errors come before any work. */
