@@ -32,7 +32,8 @@ import java.util.concurrent.Callable;
         footerHeading = "%n",
         footer = {"Examples:",
                 "  annotator evaluate --truth reference.gff3 --predicted predicted.gff3",
-                "  annotator evaluate --truth ref.gff3.gz --predicted pred.gff3 --format json -o acc.json",
+                "  annotator evaluate --truth ref.gff3.gz --predicted pred.gff3 \\",
+                "      --format json -o accuracy.json",
                 "",
                 "Base level: every base counts once per strand; TP, FP, FN, TN count positions coding in both,",
                 "only the predictions, only the reference, neither. Sn = TP/(TP+FN), Sp = TP/(TP+FP),",
@@ -53,8 +54,8 @@ import java.util.concurrent.Callable;
                 "  tp, fp, fn, tn: base-strand position counts as above.",
                 "  sensitivity, specificity, approximate_correlation: Sn, Sp, AC (null if undefined).",
                 "  truth_features, predicted_features: feature counts.",
-                "  exact, three_prime, missed, each with _percent of truth_features;",
-                "  wrong, with wrong_percent of predicted_features.",
+                "  exact, three_prime, missed: counts; exact_percent, three_prime_percent,",
+                "  missed_percent: as %% of truth_features; wrong, wrong_percent: count, %% of predicted.",
                 "",
                 Caution.TEXT})
 final class EvaluateCommand implements Callable<Integer> {
