@@ -12,7 +12,7 @@ import picocli.CommandLine.ScopeType;
                 "Annotates DNA with hidden Markov models: reads FASTA, decodes each record with a model "
                         + "(posterior or Viterbi), and writes GFF3 segments with per-segment confidence."},
         subcommands = {AnnotateCommand.class, SimulateCommand.class, TrainCommand.class, ModelCommand.class, ModelsCommand.class,
-                DemoCommand.class},
+                DemoCommand.class, EvaluateCommand.class},
         footerHeading = "%n",
         footer = {
                 "Examples:",

@@ -6,12 +6,16 @@ import java.io.ByteArrayOutputStream;
 import java.nio.charset.StandardCharsets;
 
 /** Undoes the percent-encoding of a GFF3 column (specification v1.26, "Description of the Format"). */
-final class PercentDecoding {
+public final class PercentDecoding {
     private PercentDecoding() {
     }
 
-    /** The column's text with every %XX replaced by its byte, read as UTF-8. */
-    static String decode(String s, String where) {
+    /**
+     * The column's text with every %XX replaced by its byte, read as UTF-8.
+     *
+     * @param where prefix of the error message, such as {@code FILE:LINE: column 1 (seqid)}
+     */
+    public static String decode(String s, String where) {
         if (s.indexOf('%') < 0) {
             return s;
         }

@@ -16,7 +16,7 @@ import static org.assertj.core.api.Assertions.assertThat;
 class HelpAndVersionTest {
 
     @ParameterizedTest(name = "annotator {0} --help")
-    @ValueSource(strings = {"", "annotate", "simulate", "train", "model", "model check", "models", "demo"})
+    @ValueSource(strings = {"", "annotate", "simulate", "train", "model", "model check", "models", "demo", "evaluate"})
     void everyHelpHasExamplesAndTheResearchUseCaution(String command) {
         CliRun.Result r = CliRun.run(args(command, "--help"));
         assertThat(r.status()).isZero();
