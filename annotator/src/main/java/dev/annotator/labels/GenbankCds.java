@@ -38,7 +38,7 @@ public record GenbankCds(Map<String, Integer> recordLengths, List<StrandedFeatur
      * Reads every record of a GenBank file (or stdin for "-"; plain or gzip).
      *
      * @throws BadInputException malformed GenBank data, including a CDS location that is not INSDC syntax or lies
-     *                           outside its record: {@code FILE:LINE: record NAME: CDS location 'TEXT': what}
+     *                           outside its record: {@code FILE:LINE: record LOCUSNAME: CDS location 'TEXT': what}
      */
     public static GenbankCds read(String pathOrDash, InputStream stdin) {
         String fileName = InputOpener.displayName(pathOrDash);
@@ -53,7 +53,7 @@ public record GenbankCds(Map<String, Integer> recordLengths, List<StrandedFeatur
                 String seqid = entry.sequence().name();
                 lengths.put(seqid, entry.sequence().length());
                 for (FeatureLocation f : entry.featuresOf("CDS")) {
-                    InsdcLocation loc = parse(fileName, seqid, entry.sequence().length(), f);
+                    InsdcLocation loc = parse(fileName, entry, f);
                     if (loc.unmodelled()) {
                         other++;
                     } else if (loc.partial()) {
@@ -69,13 +69,13 @@ public record GenbankCds(Map<String, Integer> recordLengths, List<StrandedFeatur
         return new GenbankCds(lengths, simple, multi, partial, other);
     }
 
-    private static InsdcLocation parse(String fileName, String seqid, long length, FeatureLocation f) {
+    private static InsdcLocation parse(String fileName, GenbankEntry entry, FeatureLocation f) {
         try {
-            return InsdcLocation.parse(f.location(), seqid, length);
+            return InsdcLocation.parse(f.location(), entry.sequence().name(), entry.sequence().length());
         } catch (InsdcLocation.Malformed e) {
             String shown = f.location().length() > 60 ? f.location().substring(0, 60) + "..." : f.location();
             shown = shown.replaceAll("\\p{Cntrl}", "?"); // one line, no terminal escapes
-            throw new BadInputException(fileName + ":" + f.line() + ": record " + seqid + ": CDS location '" + shown
+            throw new BadInputException(fileName + ":" + f.line() + ": record " + entry.locusName() + ": CDS location '" + shown
                     + "': " + e.getMessage());
         }
     }

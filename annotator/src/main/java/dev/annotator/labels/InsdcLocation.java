@@ -131,11 +131,11 @@ record InsdcLocation(List<StrandedFeature> parts, boolean partial, boolean multi
                 return new Node(List.of(), 1);
             }
             if (start < 1 || end < start) {
-                throw error("interval " + start + ".." + end + " ends before it starts");
+                throw new Malformed("interval " + start + ".." + end + " ends before it starts");
             }
             if (end > recordLength) {
-                throw error("interval " + start + ".." + end + " runs past the end of the record (" + recordLength
-                        + " bases)");
+                throw new Malformed("interval " + start + ".." + end + " runs past the end of the record ("
+                        + recordLength + " bases)");
             }
             return new Node(List.of(new StrandedFeature(seqid, start, end, '+')), 0);
         }
@@ -185,7 +185,7 @@ record InsdcLocation(List<StrandedFeature> parts, boolean partial, boolean multi
         }
 
         Malformed error(String what) {
-            return new Malformed(what + " at character " + (pos + 1));
+            return new Malformed("character " + (pos + 1) + ": " + what);
         }
     }
 }
