@@ -75,8 +75,8 @@ public record GenbankCds(Map<String, Integer> recordLengths, List<StrandedFeatur
         } catch (InsdcLocation.Malformed e) {
             String shown = f.location().length() > 60 ? f.location().substring(0, 60) + "..." : f.location();
             shown = shown.replaceAll("\\p{Cntrl}", "?"); // one line, no terminal escapes
-            throw new BadInputException(fileName + ":" + f.line() + ": record " + entry.locusName() + ": CDS location '" + shown
-                    + "': " + e.getMessage());
+            throw new BadInputException(fileName + ":" + f.line() + ": record " + entry.locusName()
+                    + ": CDS location '" + shown + "': " + e.getMessage());
         }
     }
 

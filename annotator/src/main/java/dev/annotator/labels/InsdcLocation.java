@@ -99,20 +99,10 @@ record InsdcLocation(List<StrandedFeature> parts, boolean partial, boolean multi
             return span(true);
         }
 
-        /** {@code a..b}, or one of the single-position forms (unmodelled). */
+        /** {@code a..b}, or one of the single-position or uncertain forms (unmodelled). */
         private Node span(boolean onThisRecord) {
-            if (peek() == '(') {
-                // (a.b): one base somewhere between a and b
-                pos++;
-                number();
-                expect('.');
-                number();
-                expect(')');
-                unmodelled = true;
-                return new Node(List.of(), 1);
-            }
             boolean fuzzyStart = accept('<');
-            long start = number();
+            long start = bound();
             if (accept('^') || (peek() == '.' && !text.startsWith("..", pos) && accept('.'))) {
                 number(); // a^b: a site between two bases; a.b: one base between a and b
                 unmodelled = true;
@@ -125,9 +115,9 @@ record InsdcLocation(List<StrandedFeature> parts, boolean partial, boolean multi
             }
             pos += 2;
             boolean fuzzyEnd = accept('>');
-            long end = number();
+            long end = bound();
             partial |= fuzzyStart || fuzzyEnd;
-            if (!onThisRecord) {
+            if (!onThisRecord || start < 0 || end < 0) {
                 return new Node(List.of(), 1);
             }
             if (start < 1 || end < start) {
@@ -138,6 +128,19 @@ record InsdcLocation(List<StrandedFeature> parts, boolean partial, boolean multi
                         + recordLength + " bases)");
             }
             return new Node(List.of(new StrandedFeature(seqid, start, end, '+')), 0);
+        }
+
+        /** A base number, or -1 for an uncertain one, {@code (a.b)}: one base somewhere from a to b. */
+        private long bound() {
+            if (!accept('(')) {
+                return number();
+            }
+            number();
+            expect('.');
+            number();
+            expect(')');
+            unmodelled = true;
+            return -1;
         }
 
         /** An accession (letters, digits, '_', optional .version) followed by ':' starts here. */

@@ -10,7 +10,8 @@ import java.util.List;
  * @param circular  the LOCUS line says the molecule is circular
  * @param features  every feature of the table in file order, qualifiers dropped
  */
-public record GenbankEntry(SequenceRecord sequence, String locusName, boolean circular, List<FeatureLocation> features) {
+public record GenbankEntry(SequenceRecord sequence, String locusName, boolean circular,
+                           List<FeatureLocation> features) {
     public GenbankEntry {
         features = List.copyOf(features);
     }

@@ -104,7 +104,8 @@ public final class GenbankRecordReader implements AutoCloseable {
         RecordBody body = new RecordBody(locus, locusLine);
         while (true) {
             if (!lines.advance()) {
-                throw fail(lines.number(), "record " + locus.name() + ": input ends before the record's closing '//' line");
+                throw fail(lines.number(), "record " + locus.name()
+                        + ": input ends before the record's closing '//' line");
             }
             if (lines.startsWith("//")) {
                 break;
@@ -265,8 +266,8 @@ public final class GenbankRecordReader implements AutoCloseable {
                 throw fail(endLine, "record " + locus.name() + ": no ORIGIN section (the record has no sequence)");
             }
             if (count != locus.length()) {
-                throw fail(endLine, "record " + locus.name() + ": sequence has " + count + " bases, its LOCUS line (line "
-                        + locusLine + ") says " + locus.length());
+                throw fail(endLine, "record " + locus.name() + ": sequence has " + count
+                        + " bases, its LOCUS line (line " + locusLine + ") says " + locus.length());
             }
             String seqid = version != null ? version : accession != null ? accession : locus.name();
             Long first = firstSeenAt.putIfAbsent(seqid, locusLine);

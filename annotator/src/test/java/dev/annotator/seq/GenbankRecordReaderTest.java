@@ -58,9 +58,9 @@ class GenbankRecordReaderTest {
     /** Lengths as stated in test-data/README.md and on each file's LOCUS line. */
     @Test
     void publishedLengthsAndNames() {
-        SequenceRecord ct = readAll(PublishedGenbankRecords.path(PublishedGenbankRecords.CHLAMYDIA).toString()).get(0);
-        SequenceRecord plasmid = readAll(PublishedGenbankRecords.path(PublishedGenbankRecords.PLASMID).toString()).get(0);
-        SequenceRecord plastid = readAll(PublishedGenbankRecords.path(PublishedGenbankRecords.CHLOROPLAST).toString()).get(0);
+        SequenceRecord ct = first(PublishedGenbankRecords.CHLAMYDIA);
+        SequenceRecord plasmid = first(PublishedGenbankRecords.PLASMID);
+        SequenceRecord plastid = first(PublishedGenbankRecords.CHLOROPLAST);
         assertThat(ct.length()).isEqualTo(1_042_519);
         assertThat(plasmid.length()).isEqualTo(9_609);
         assertThat(plastid.length()).isEqualTo(154_478);
@@ -82,7 +82,7 @@ class GenbankRecordReaderTest {
             theirs = new GenbankReader<DNASequence, NucleotideCompound>(in, new GenericGenbankHeaderParser<>(),
                     new DNASequenceCreator(DNACompoundSet.getDNACompoundSet())).process();
         }
-        SequenceRecord ours = readAll(PublishedGenbankRecords.path(file).toString()).get(0);
+        SequenceRecord ours = first(file);
         assertThat(theirs).hasSize(1);
         DNASequence their = theirs.values().iterator().next();
         assertThat(ours.name()).startsWith(their.getAccession().getID());
@@ -96,7 +96,7 @@ class GenbankRecordReaderTest {
      */
     @Test
     void chlamydiaGcContent() {
-        SequenceRecord ct = readAll(PublishedGenbankRecords.path(PublishedGenbankRecords.CHLAMYDIA).toString()).get(0);
+        SequenceRecord ct = first(PublishedGenbankRecords.CHLAMYDIA);
         long[] counts = new long[5];
         for (byte b : ct.bases()) {
             counts[BaseCode.of(b)]++;
@@ -178,6 +178,10 @@ class GenbankRecordReaderTest {
         assertThatThrownBy(() -> readAll("-", twice))
                 .isInstanceOf(BadInputException.class)
                 .hasMessage("<stdin>:6: duplicate record name 'X' (first seen at line 1)");
+    }
+
+    private static SequenceRecord first(String publishedFile) {
+        return readAll(PublishedGenbankRecords.path(publishedFile).toString()).get(0);
     }
 
     private static List<SequenceRecord> readAll(String path) {

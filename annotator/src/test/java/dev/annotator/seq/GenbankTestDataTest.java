@@ -26,7 +26,8 @@ class GenbankTestDataTest {
         Matcher row = Pattern.compile("(?m)^\\| `genbank/" + Pattern.quote(file) + "` \\|.*?sha256 `([0-9a-f]{64})`")
                 .matcher(readme);
         assertThat(row.find()).as("a row with a sha256 for genbank/%s in test-data/README.md", file).isTrue();
-        byte[] digest = MessageDigest.getInstance("SHA-256").digest(Files.readAllBytes(PublishedGenbankRecords.path(file)));
+        byte[] bytes = Files.readAllBytes(PublishedGenbankRecords.path(file));
+        byte[] digest = MessageDigest.getInstance("SHA-256").digest(bytes);
         assertThat(HexFormat.of().formatHex(digest)).isEqualTo(row.group(1));
     }
 }
