@@ -5,6 +5,7 @@ import dev.annotator.error.UsageException;
 import dev.annotator.evaluate.AccuracyJson;
 import dev.annotator.evaluate.AccuracyTable;
 import dev.annotator.evaluate.Evaluation;
+import dev.annotator.evaluate.GenbankTruth;
 import dev.annotator.evaluate.FeatureSet;
 import dev.annotator.evaluate.GeneComparison;
 import dev.annotator.evaluate.StrandedGff3Reader;
@@ -67,8 +68,9 @@ final class EvaluateCommand implements Callable<Integer> {
     @ParentCommand
     AnnotatorCommand parent;
 
-    @Option(names = "--truth", required = true, paramLabel = "REF.gff3",
-            description = "Reference annotation (GFF3, plain or gzip), or - for standard input.")
+    @Option(names = "--truth", required = true, paramLabel = "REF",
+            description = "Reference annotation: GFF3, or a GenBank flat file (its simple CDS; joined and partial CDS "
+                    + "are left out), plain or gzip; - for standard input (GFF3).")
     String truth;
 
     @Option(names = "--predicted", required = true, paramLabel = "PRED.gff3",
@@ -128,8 +130,7 @@ final class EvaluateCommand implements Callable<Integer> {
     private TruthSource truthSource(StrandedGff3Reader gff3) {
         return switch (TruthFormat.detect(truth)) {
             case GFF3 -> gff3;
-            // GENBANK TRUTH: the one place to plug in the GenBank CDS reader (a TruthSource)
-            case GENBANK -> throw new UsageException(truth + ": GenBank truth files are not supported yet");
+            case GENBANK -> new GenbankTruth(parent.streams().in());
         };
     }
 }

@@ -36,13 +36,18 @@ final class GeneTopologyCommand implements java.util.concurrent.Callable<Integer
     @Option(names = "--name", defaultValue = "gene-model", description = "The model's name (default: ${DEFAULT-VALUE}).")
     String name;
 
-    @Option(names = "--coding-order", defaultValue = "5", paramLabel = "K",
+    @Option(names = "--coding-order", defaultValue = "4", paramLabel = "K",
             description = "Emission order of the codon-position states, 2..8 (default: ${DEFAULT-VALUE}).")
     int codingOrder;
 
-    @Option(names = "--noncoding-order", defaultValue = "5", paramLabel = "K",
+    @Option(names = "--noncoding-order", defaultValue = "4", paramLabel = "K",
             description = "Emission order of the non-coding state, 0..8 (default: ${DEFAULT-VALUE}).")
     int noncodingOrder;
+
+    @Option(names = "--upstream", defaultValue = "" + GeneTopology.DEFAULT_UPSTREAM, paramLabel = "BP",
+            description = "Bases before each start codon modelled position by position, where the ribosome-binding "
+                    + "site lies; 0 for none (default: ${DEFAULT-VALUE}).")
+    int upstream;
 
     @Option(names = "--starts", split = ",", paramLabel = "CODON",
             description = "Start codons (default: ATG,GTG,TTG of NCBI translation table 11).")
@@ -73,7 +78,10 @@ final class GeneTopologyCommand implements java.util.concurrent.Callable<Integer
                 throw new UsageException(e.getMessage());
             }
         }
-        HmmModel topology = GeneTopology.build(name, code, codingOrder, noncodingOrder);
+        if (upstream < 0 || upstream > GeneTopology.MAX_UPSTREAM) {
+            throw new UsageException("--upstream " + upstream + " is outside 0.." + GeneTopology.MAX_UPSTREAM);
+        }
+        HmmModel topology = GeneTopology.build(name, code, codingOrder, noncodingOrder, upstream);
         OutputTarget.refuseBeforeRun(List.of(), List.of(output), force);
         Streams streams = model.parent.streams();
         try (OutputTarget out = OutputTarget.open(output, streams.out(), force)) {

@@ -12,7 +12,8 @@ import dev.annotator.hmm.ImpossibleSequenceException;
 import dev.annotator.io.InputOpener;
 import dev.annotator.model.HmmModel;
 import dev.annotator.parallel.OrderedParallelMap;
-import dev.annotator.seq.FastaRecordReader;
+import dev.annotator.seq.SequenceFiles;
+import dev.annotator.seq.SequenceReader;
 import dev.annotator.seq.SequenceRecord;
 
 import java.io.IOException;
@@ -80,8 +81,7 @@ public final class AnnotationPipeline {
         dev.annotator.io.RawInputObserver observer = tracker == null ? fingerprint
                 : fingerprint == null ? tracker : tracker.andThen(fingerprint);
         MemoryBudget budget = MemoryBudget.ofThisJvm(model.stateCount(), options.method());
-        try (FastaRecordReader reader = FastaRecordReader.open(input, stdin, warnings, budget.recordLimit(),
-                observer);
+        try (SequenceReader reader = SequenceFiles.open(input, stdin, warnings, budget.recordLimit(), observer);
              OrderedParallelMap<SequenceRecord, RecordAnnotation> map = new OrderedParallelMap<>(options.threads(),
                      r -> decode(r, inputName, tracker), sink, SequenceRecord::length, budget.basesInFlight())) {
             writer.writeHeader();

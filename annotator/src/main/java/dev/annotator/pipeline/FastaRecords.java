@@ -1,7 +1,8 @@
 package dev.annotator.pipeline;
 
 import dev.annotator.labels.KnownLabels;
-import dev.annotator.seq.FastaRecordReader;
+import dev.annotator.seq.SequenceFiles;
+import dev.annotator.seq.SequenceReader;
 import dev.annotator.seq.SequenceRecord;
 import dev.annotator.train.CountItem;
 
@@ -20,7 +21,7 @@ final class FastaRecords implements Iterator<CountItem>, AutoCloseable {
     private final KnownLabels labels;
     private final Consumer<String> warnings;
     private int file = -1;
-    private FastaRecordReader reader;
+    private SequenceReader reader;
     private CountItem next;
     private final java.util.ArrayDeque<CountItem> pending = new java.util.ArrayDeque<>();
 
@@ -45,7 +46,7 @@ final class FastaRecords implements Iterator<CountItem>, AutoCloseable {
                 if (++file >= inputs.size()) {
                     return false;
                 }
-                reader = FastaRecordReader.open(inputs.get(file), InputStream.nullInputStream(), warnings);
+                reader = SequenceFiles.open(inputs.get(file), InputStream.nullInputStream(), warnings);
             }
             SequenceRecord r = reader.next();
             if (r == null) {

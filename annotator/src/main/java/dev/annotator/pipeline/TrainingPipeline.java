@@ -1,6 +1,8 @@
 package dev.annotator.pipeline;
 
 import dev.annotator.error.BadInputException;
+import dev.annotator.io.InputFormat;
+import dev.annotator.labels.GenbankLabels;
 import dev.annotator.labels.KnownLabels;
 import dev.annotator.labels.LabelledFeatures;
 import dev.annotator.labels.LabelledInterval;
@@ -11,7 +13,8 @@ import dev.annotator.model.HmmModel;
 import dev.annotator.model.InputFingerprint;
 import dev.annotator.model.Label;
 import dev.annotator.model.State;
-import dev.annotator.seq.FastaRecordReader;
+import dev.annotator.seq.SequenceFiles;
+import dev.annotator.seq.SequenceReader;
 import dev.annotator.seq.SequenceRecord;
 import dev.annotator.train.CountItem;
 import dev.annotator.train.CountSource;
@@ -130,7 +133,9 @@ public final class TrainingPipeline {
             return new Prepared(fingerprints, List.of(), null);
         }
         InputFingerprint labelFile = InputFingerprints.of(labelsPath);
-        LabelledFeatures features = new LabelGff3Reader(start).readFeatures(labelsPath, warnings);
+        LabelledFeatures features = InputFormat.detect(labelsPath) == InputFormat.GENBANK
+                ? GenbankLabels.read(start, labelsPath, warnings)
+                : new LabelGff3Reader(start).readFeatures(labelsPath, warnings);
         Map<String, Integer> lengths = new HashMap<>();
         if (WholeFeatureScreen.applies(start)) {
             features = screenGenes(features, lengths);
@@ -156,7 +161,7 @@ public final class TrainingPipeline {
         int notEmittable = 0;
         int overlapping = 0;
         for (String input : inputs) {
-            try (FastaRecordReader reader = FastaRecordReader.open(input, InputStream.nullInputStream(), w -> { })) {
+            try (SequenceReader reader = SequenceFiles.open(input, InputStream.nullInputStream(), w -> { })) {
                 SequenceRecord r;
                 while ((r = reader.next()) != null) {
                     if (lengths.putIfAbsent(r.name(), r.length()) != null || !kept.containsKey(r.name())) {
@@ -192,7 +197,7 @@ public final class TrainingPipeline {
     private Map<String, Integer> recordLengths() {
         Map<String, Integer> lengths = new HashMap<>();
         for (String input : inputs) {
-            try (FastaRecordReader reader = FastaRecordReader.open(input, InputStream.nullInputStream(), w -> { })) {
+            try (SequenceReader reader = SequenceFiles.open(input, InputStream.nullInputStream(), w -> { })) {
                 SequenceRecord r;
                 while ((r = reader.next()) != null) {
                     lengths.putIfAbsent(r.name(), r.length());

@@ -30,7 +30,7 @@ import java.util.function.Consumer;
  * (by default the array limit; the pipeline passes what its heap can hold), so no input makes the parser buffer
  * without bound.
  */
-public final class FastaRecordReader implements AutoCloseable {
+public final class FastaRecordReader implements SequenceReader {
     private final String fileName;
     private final FastaLineScanner scanner;
     private final FastaReader<ByteBackedSequence, NucleotideCompound> parser;

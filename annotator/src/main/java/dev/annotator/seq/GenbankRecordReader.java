@@ -30,7 +30,7 @@ import java.util.Map;
  * <p>Memory: the current record's bases (one byte each, grown by doubling up to the declared length) and its
  * feature locations; lines are limited to {@link #MAX_LINE_LENGTH} bytes.
  */
-public final class GenbankRecordReader implements AutoCloseable {
+public final class GenbankRecordReader implements SequenceReader {
     /** Longer lines are not GenBank (sequence lines hold 60 bases, text wraps at 80 columns). */
     static final int MAX_LINE_LENGTH = 1 << 20;
 
@@ -54,7 +54,14 @@ public final class GenbankRecordReader implements AutoCloseable {
      * @throws dev.annotator.error.MissingInputException the file does not exist or cannot be read
      */
     public static GenbankRecordReader open(String pathOrDash, InputStream stdin) {
-        return new GenbankRecordReader(InputOpener.displayName(pathOrDash), InputOpener.open(pathOrDash, stdin));
+        return open(pathOrDash, stdin, null);
+    }
+
+    /** As above, also showing the raw input bytes read to {@code rawBytes} (may be null), for progress and checksums. */
+    public static GenbankRecordReader open(String pathOrDash, InputStream stdin,
+                                           dev.annotator.io.RawInputObserver rawBytes) {
+        return new GenbankRecordReader(InputOpener.displayName(pathOrDash),
+                InputOpener.open(pathOrDash, stdin, rawBytes));
     }
 
     /**

@@ -35,7 +35,7 @@ public final class GeneTopology {
     public static final String FORWARD_LABEL = "cds_forward";
     public static final String REVERSE_LABEL = "cds_reverse";
     /** Default length of the modelled stretch before a start codon. */
-    public static final int DEFAULT_UPSTREAM = 20;
+    public static final int DEFAULT_UPSTREAM = 12;
     public static final int MAX_UPSTREAM = 60;
     /** Emission order of the upstream states: position-specific, so kept low for the few hundred genes of a genome. */
     public static final int UPSTREAM_ORDER = 1;
