@@ -37,6 +37,8 @@ public final class Annotator {
     private final int window;
     private final ProfileOptions profile;
     private final int trackLabel;
+    /** For a gene model with genes on both strands: the decoders of the two strand views, else null. */
+    private final List<Annotator> strandViews;
 
     /**
      * @param minLength segments shorter than this many bases are dropped (0 or 1 keeps all)
@@ -72,6 +74,9 @@ public final class Annotator {
         this.posteriorViterbi = method == DecodeMethod.POSTERIOR_VITERBI ? new PosteriorViterbi(parameters) : null;
         this.profile = profile;
         this.trackLabel = trackLabelIndex(labels, profile.trackLabel());
+        this.strandViews = StrandView.applies(model) ? List.of(
+                new Annotator(StrandView.of(model, '+'), method, minLength, window, ProfileOptions.NONE),
+                new Annotator(StrandView.of(model, '-'), method, minLength, window, ProfileOptions.NONE)) : null;
         this.stateToReported = new int[model.stateCount()];
         for (int s = 0; s < stateToReported.length; s++) {
             stateToReported[s] = -1;
@@ -117,6 +122,9 @@ public final class Annotator {
      * may be called from several threads at once).
      */
     public RecordAnnotation annotate(SequenceRecord record, LongConsumer progress) {
+        if (strandViews != null) {
+            return annotateByStrand(record, progress);
+        }
         byte[] bases = record.bases();
         List<RawSegment> raw;
         double logLik;
@@ -180,6 +188,34 @@ public final class Annotator {
         segments.sort(Comparator.comparingInt(Segment::start).thenComparingInt(s -> order.indexOf(s.label())));
         RecordProfile recordProfile = windowProfiles == null ? null
                 : RecordProfiles.join(profile, labels, trackLabel, bases, windowProfiles);
+        return new RecordAnnotation(record.name(), bases.length, logLik, segments, recordProfile);
+    }
+
+    /**
+     * A gene model decoded strand by strand ({@link StrandView}): genes of each strand from its own view, merged in
+     * order; the log-likelihood (and the profile, when asked for) from the model itself.
+     */
+    private RecordAnnotation annotateByStrand(SequenceRecord record, LongConsumer progress) {
+        byte[] bases = record.bases();
+        List<Segment> segments = new ArrayList<>();
+        for (Annotator view : strandViews) {
+            segments.addAll(view.annotate(record).segments());
+        }
+        List<String> order = labels.labels().stream().map(Label::name).toList();
+        segments.sort(Comparator.comparingInt(Segment::start).thenComparingInt(s -> order.indexOf(s.label()))
+                .thenComparingInt(Segment::end));
+        double logLik;
+        RecordProfile recordProfile = null;
+        if (profile.any()) {
+            WindowProfile whole = new WindowProfile(labels, trackLabel, profile, 0, bases.length, bases.length,
+                    parameters.stateCount());
+            logLik = forwardBackward.run(bases, whole);
+            whole.finish();
+            recordProfile = RecordProfiles.join(profile, labels, trackLabel, bases, List.of(whole));
+        } else {
+            logLik = forwardBackward.logLikelihood(bases);
+        }
+        progress.accept(bases.length);
         return new RecordAnnotation(record.name(), bases.length, logLik, segments, recordProfile);
     }
 

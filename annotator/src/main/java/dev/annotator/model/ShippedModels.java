@@ -18,7 +18,7 @@ public final class ShippedModels {
     public static final String RESOURCE_DIR = "dev/annotator/models/";
 
     /** Names of the shipped models, in the order they are listed. */
-    public static final List<String> NAMES = List.of("cpg-island");
+    public static final List<String> NAMES = List.of("cpg-island", "bacterial-genes");
 
     private ShippedModels() {
     }

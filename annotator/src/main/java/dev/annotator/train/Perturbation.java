@@ -51,7 +51,7 @@ public final class Perturbation {
                     double[] row = normalise(scale(java.util.Arrays.copyOfRange(table, r, r + 4), rng));
                     System.arraycopy(row, 0, table, r, 4);
                 }
-                out.add(new State(s.name(), s.label(), s.order(), table));
+                out.add(new State(s.name(), s.label(), s.order(), table, s.codonPosition()));
             }
             states = out;
         }

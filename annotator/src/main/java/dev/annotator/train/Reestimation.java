@@ -83,7 +83,7 @@ public final class Reestimation {
                 System.arraycopy(c, r * 4, rowCounts, 0, 4);
                 System.arraycopy(row(cur, rowCounts, pseudocount), 0, table, r * 4, 4);
             }
-            states.add(new State(st.name(), st.label(), st.order(), table));
+            states.add(new State(st.name(), st.label(), st.order(), table, st.codonPosition()));
         }
         return new HmmModel(current.name(), current.description(), current.provenance(), current.labels(), states,
                 start, transitions);
