@@ -107,10 +107,15 @@ public final class PosteriorViterbi {
 
     private PosteriorMaxSumPass newPass(int n) {
         int k = p.stateCount();
-        if ((long) n * k > Integer.MAX_VALUE - 8) {
-            throw new IllegalArgumentException("posterior-Viterbi back-pointers for " + n + " bases x " + k
-                    + " states exceed one Java array; decode this record with posterior decoding");
-        }
+        checkBackPointersFit(n, k);
         return new PosteriorMaxSumPass(n, k, p.startArray(), succOffset, succState, TIE_TOLERANCE);
+    }
+
+    /** The back-pointers are one byte array, so length x states must stay within Java's array limit. */
+    static void checkBackPointersFit(long length, int states) {
+        if (length * states > Integer.MAX_VALUE - 8) {
+            throw new IllegalArgumentException("posterior-Viterbi back-pointers for " + length + " bases x " + states
+                    + " states exceed one Java array; decode this record with per-position posterior decoding");
+        }
     }
 }
