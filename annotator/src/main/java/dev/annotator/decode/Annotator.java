@@ -39,6 +39,7 @@ public final class Annotator {
     private final int trackLabel;
     /** For a gene model with genes on both strands: the decoders of the two strand views, else null. */
     private final List<Annotator> strandViews;
+    private final LongestOrfStarts longestOrfStarts;
 
     /**
      * @param minLength segments shorter than this many bases are dropped (0 or 1 keeps all)
@@ -60,6 +61,14 @@ public final class Annotator {
      * @throws IllegalArgumentException when the profile's track label is not a reported label of the model
      */
     public Annotator(HmmModel model, DecodeMethod method, int minLength, int window, ProfileOptions profile) {
+        this(model, method, minLength, window, profile, GeneStarts.LONGEST_ORF);
+    }
+
+    /**
+     * @param starts where genes of a gene model start (used with Viterbi and posterior-Viterbi decoding)
+     */
+    public Annotator(HmmModel model, DecodeMethod method, int minLength, int window, ProfileOptions profile,
+                     GeneStarts starts) {
         if (window < 1) {
             throw new IllegalArgumentException("window must be positive");
         }
@@ -75,8 +84,10 @@ public final class Annotator {
         this.profile = profile;
         this.trackLabel = trackLabelIndex(labels, profile.trackLabel());
         this.strandViews = StrandView.applies(model) ? List.of(
-                new Annotator(StrandView.of(model, '+'), method, minLength, window, ProfileOptions.NONE),
-                new Annotator(StrandView.of(model, '-'), method, minLength, window, ProfileOptions.NONE)) : null;
+                new Annotator(StrandView.of(model, '+'), method, minLength, window, ProfileOptions.NONE, starts),
+                new Annotator(StrandView.of(model, '-'), method, minLength, window, ProfileOptions.NONE, starts))
+                : null;
+        this.longestOrfStarts = starts == GeneStarts.LONGEST_ORF ? LongestOrfStarts.of(model, parameters) : null;
         this.stateToReported = new int[model.stateCount()];
         for (int s = 0; s < stateToReported.length; s++) {
             stateToReported[s] = -1;
@@ -134,7 +145,11 @@ public final class Annotator {
         if (method != DecodeMethod.POSTERIOR) {
             statePath = method == DecodeMethod.VITERBI ? viterbi.decode(bases).path()
                     : posteriorViterbi.decode(bases).path();
-            PathRuns runs = new PathRuns(labels, statePath, stateToReported, k);
+            List<RawSegment> pathRuns = PathRuns.runsOf(labels, statePath, stateToReported);
+            if (longestOrfStarts != null) {
+                pathRuns = longestOrfStarts.extend(bases, statePath, pathRuns, labels);
+            }
+            PathRuns runs = new PathRuns(pathRuns, k);
             if (profile.any()) {
                 WindowProfile whole = new WindowProfile(labels, trackLabel, profile, 0, bases.length, bases.length, k);
                 logLik = forwardBackward.run(bases, (s, e, p, em) -> {

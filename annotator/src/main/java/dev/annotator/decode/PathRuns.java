@@ -14,8 +14,28 @@ final class PathRuns implements PosteriorBlockSink {
     private final int stateCount;
     // runs sorted by start; cursor walks them backwards as positions descend
     private int cursor;
+    // reach[i]: the furthest end of runs 0..i, so a position's runs are found walking back from the cursor
+    private final int[] reach;
 
     PathRuns(ReportedLabels labels, byte[] path, int[] stateToReported, int stateCount) {
+        this(runsOf(labels, path, stateToReported), stateCount);
+    }
+
+    /** Statistics over given runs: sorted by start, possibly overlapping. */
+    PathRuns(List<RawSegment> runs, int stateCount) {
+        this.runs = runs;
+        this.stateCount = stateCount;
+        this.cursor = runs.size() - 1;
+        this.reach = new int[runs.size()];
+        int max = 0;
+        for (int i = 0; i < runs.size(); i++) {
+            max = Math.max(max, runs.get(i).endExclusive());
+            reach[i] = max;
+        }
+    }
+
+    /** The maximal runs of one reported label along a path, in order. */
+    static List<RawSegment> runsOf(ReportedLabels labels, byte[] path, int[] stateToReported) {
         List<RawSegment> found = new ArrayList<>();
         int n = path.length;
         int t = 0;
@@ -30,9 +50,7 @@ final class PathRuns implements PosteriorBlockSink {
             }
             t = u;
         }
-        this.runs = found;
-        this.cursor = found.size() - 1;
-        this.stateCount = stateCount;
+        return found;
     }
 
     @Override
@@ -44,9 +62,11 @@ final class PathRuns implements PosteriorBlockSink {
             if (cursor < 0) {
                 return;
             }
-            RawSegment run = runs.get(cursor);
-            if (t < run.endExclusive()) {
-                run.stats().add(posterior, emission, (t - start) * stateCount);
+            for (int i = cursor; i >= 0 && reach[i] > t; i--) {
+                RawSegment run = runs.get(i);
+                if (t < run.endExclusive()) {
+                    run.stats().add(posterior, emission, (t - start) * stateCount);
+                }
             }
         }
     }
