@@ -1,6 +1,7 @@
 package dev.annotator.cli;
 
 import dev.annotator.decode.DecodeMethod;
+import dev.annotator.decode.GeneStarts;
 import dev.annotator.decode.ProfileOptions;
 import dev.annotator.error.IoFailureException;
 import dev.annotator.model.HmmModel;
@@ -32,7 +33,8 @@ import java.util.Locale;
 import java.util.concurrent.Callable;
 
 @Command(name = "annotate", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
-        description = "Decode every record of a FASTA file with a model and write the called segments as GFF3.",
+        description = "Decode every record of a FASTA (or GenBank) file with a model and write the called segments "
+                + "as GFF3.",
         footerHeading = "%n",
         footer = {
                 "Examples:",
@@ -41,9 +43,14 @@ import java.util.concurrent.Callable;
                 "      > islands.gff3",
                 "  annotator annotate -m my-model.json --decode viterbi --threads 2 \\",
                 "      -o calls.gff3 genome.fa.gz",
+                "  annotator annotate -m bacterial-genes -o genes.gff3 phage.fa",
                 "",
                 "Segments: with posterior decoding, maximal runs where a reported label's posterior exceeds 0.5; "
-                        + "with Viterbi, runs of the label on the most probable path. Score = mean posterior.",
+                        + "with Viterbi, runs of the label on the most probable path; with posterior-Viterbi, runs on "
+                        + "the allowed path of largest summed posterior. Score = mean posterior.",
+                "Gene models (labels with a strand): each strand is decoded on its own, so genes on opposite strands "
+                        + "may overlap; each gene is written as a gene with a child CDS (start and stop codons "
+                        + "included, phase, start_codon, partial=5'/3' where it runs off a record end).",
                 "",
                 Caution.TEXT})
 final class AnnotateCommand implements Callable<Integer> {
@@ -70,6 +77,13 @@ final class AnnotateCommand implements Callable<Integer> {
                     + "Default: posterior-viterbi for models with a label of several states (gene models), else "
                     + "posterior.")
     DecodeMethod decode;
+
+    @Option(names = "--gene-starts", paramLabel = "RULE", defaultValue = "longest-orf",
+            converter = GeneStartsConverter.class,
+            description = "Gene models: longest-orf (default) moves each gene's start to the first start codon of its "
+                    + "open reading frame, common practice where start signals are weak; decoded keeps the start "
+                    + "the decoded path gives.")
+    GeneStarts geneStarts;
 
     @Option(names = "--min-length", paramLabel = "BP", defaultValue = "0",
             description = "Drop segments shorter than BP bases (default: ${DEFAULT-VALUE}).")
@@ -175,7 +189,7 @@ final class AnnotateCommand implements Callable<Integer> {
         }
         AnnotationPipeline pipeline = new AnnotationPipeline(hmm,
                 new AnnotationOptions(decode == null ? DecodeMethod.defaultFor(hmm) : decode, minLength, n, idPrefix,
-                        profile));
+                        profile, geneStarts));
         RunSummary run;
         try (OutputTarget out = OutputTarget.open(output, parent.streams().out(), force);
              SideOutputs side = SideOutputs.open(hmm, summary, posteriorTrack, label, trackStep, report, force)) {

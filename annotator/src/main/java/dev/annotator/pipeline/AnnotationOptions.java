@@ -1,6 +1,7 @@
 package dev.annotator.pipeline;
 
 import dev.annotator.decode.DecodeMethod;
+import dev.annotator.decode.GeneStarts;
 import dev.annotator.decode.ProfileOptions;
 
 /**
@@ -11,9 +12,15 @@ import dev.annotator.decode.ProfileOptions;
  * @param threads   records decoded at once; output order and bytes do not depend on it
  * @param idPrefix  put before every feature ID (for shards of one genome annotated separately); may be empty
  * @param profile   per-record products beside the segments (tracks, summary, report)
+ * @param starts    where genes of a gene model start
  */
 public record AnnotationOptions(DecodeMethod method, int minLength, int threads, String idPrefix,
-                                ProfileOptions profile) {
+                                ProfileOptions profile, GeneStarts starts) {
+    public AnnotationOptions(DecodeMethod method, int minLength, int threads, String idPrefix,
+                             ProfileOptions profile) {
+        this(method, minLength, threads, idPrefix, profile, GeneStarts.LONGEST_ORF);
+    }
+
     public AnnotationOptions(DecodeMethod method, int minLength, int threads) {
         this(method, minLength, threads, "");
     }
@@ -25,6 +32,9 @@ public record AnnotationOptions(DecodeMethod method, int minLength, int threads,
     public AnnotationOptions {
         if (profile == null) {
             throw new IllegalArgumentException("profile must not be null");
+        }
+        if (starts == null) {
+            throw new IllegalArgumentException("starts must not be null");
         }
         if (idPrefix == null) {
             throw new IllegalArgumentException("idPrefix must not be null");

@@ -34,7 +34,8 @@ public final class AnnotationPipeline {
     public AnnotationPipeline(HmmModel model, AnnotationOptions options) {
         this.model = model;
         this.options = options;
-        this.annotator = new Annotator(model, options.method(), options.minLength(), Annotator.WINDOW, options.profile());
+        this.annotator = new Annotator(model, options.method(), options.minLength(), Annotator.WINDOW, options.profile(),
+                options.starts());
         this.features = new SegmentFeatures(model.labels());
     }
 
