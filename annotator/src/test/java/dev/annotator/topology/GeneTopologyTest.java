@@ -2,7 +2,6 @@ package dev.annotator.topology;
 
 import dev.annotator.hmm.BaumWelchKernel;
 import dev.annotator.hmm.ImpossibleSequenceException;
-import dev.annotator.model.EmissionContexts;
 import dev.annotator.model.HmmModel;
 import dev.annotator.model.Label;
 import dev.annotator.model.ModelCompiler;
@@ -30,7 +29,6 @@ import static org.assertj.core.api.Assertions.assertThatThrownBy;
  * which triplets each run of three codon states can emit, and whether labelled genes can be emitted at all.
  */
 class GeneTopologyTest {
-    private static final String BASES = "ACGT";
 
     @ParameterizedTest
     @CsvSource({"2, 0, 0", "4, 4, 12", "3, 1, 60", "8, 2, 1"})
@@ -96,7 +94,7 @@ class GeneTopologyTest {
     @ValueSource(ints = {2, 4})
     void forwardCodonStatesEmitEveryCodonButTheStops(int codingOrder) {
         HmmModel m = GeneTopology.build("genes", GeneticCode.TABLE_11, codingOrder, 0);
-        Set<String> emitted = emitted(m, "codon+1", "codon+2", "codon+3");
+        Set<String> emitted = TripletEmissions.emitted(m, "codon+1", "codon+2", "codon+3");
         Set<String> expected = new TreeSet<>(NcbiTables.allCodons());
         expected.removeAll(NcbiTables.stops(11));
         assertThat(emitted).hasSize(61).isEqualTo(expected);
@@ -107,7 +105,7 @@ class GeneTopologyTest {
     void reverseCodonStatesEmitTheReverseComplementOfEveryCodonButTheStops(int codingOrder) {
         HmmModel m = GeneTopology.build("genes", GeneticCode.TABLE_11, codingOrder, 0);
         // read forwards, a reverse-strand codon passes codon position 3 first
-        Set<String> emitted = emitted(m, "codon-3", "codon-2", "codon-1");
+        Set<String> emitted = TripletEmissions.emitted(m, "codon-3", "codon-2", "codon-1");
         Set<String> expected = new TreeSet<>();
         for (String c : NcbiTables.allCodons()) {
             if (!NcbiTables.stops(11).contains(c)) {
@@ -121,16 +119,16 @@ class GeneTopologyTest {
     @Test
     void startStatesEmitExactlyTheThreeStarts() {
         HmmModel m = GeneTopology.build("genes", GeneticCode.TABLE_11, 4, 0);
-        assertThat(emitted(m, "start+1", "start+2", "start+3")).containsExactlyInAnyOrder("ATG", "GTG", "TTG");
-        assertThat(emitted(m, "start-3", "start-2", "start-1")).containsExactlyInAnyOrder("CAT", "CAC", "CAA")
+        assertThat(TripletEmissions.emitted(m, "start+1", "start+2", "start+3")).containsExactlyInAnyOrder("ATG", "GTG", "TTG");
+        assertThat(TripletEmissions.emitted(m, "start-3", "start-2", "start-1")).containsExactlyInAnyOrder("CAT", "CAC", "CAA")
                 .isEqualTo(reverseComplements(List.of("ATG", "GTG", "TTG")));
     }
 
     @Test
     void stopStatesEmitExactlyTheStops() {
         HmmModel m = GeneTopology.build("genes", GeneticCode.TABLE_11, 4, 0);
-        assertThat(emitted(m, "stop+1", "stop+2", "stop+3")).isEqualTo(NcbiTables.stops(11));
-        assertThat(emitted(m, "stop-3", "stop-2", "stop-1")).isEqualTo(reverseComplements(NcbiTables.stops(11)))
+        assertThat(TripletEmissions.emitted(m, "stop+1", "stop+2", "stop+3")).isEqualTo(NcbiTables.stops(11));
+        assertThat(TripletEmissions.emitted(m, "stop-3", "stop-2", "stop-1")).isEqualTo(reverseComplements(NcbiTables.stops(11)))
                 .containsExactlyInAnyOrder("TTA", "CTA", "TCA");
     }
 
@@ -197,7 +195,7 @@ class GeneTopologyTest {
         assertThat(emittable(m, withTga, '+')).isTrue();
         assertThat(emittable(m, NcbiTables.reverseComplement(withTga), '-')).isTrue();
         assertThat(emittable(m, gene("ATG", SENSE, "TGA"), '+')).as("TGA no longer ends a gene").isFalse();
-        assertThat(emitted(m, "codon+1", "codon+2", "codon+3")).contains("TGA").doesNotContain("TAA", "TAG");
+        assertThat(TripletEmissions.emitted(m, "codon+1", "codon+2", "codon+3")).contains("TGA").doesNotContain("TAA", "TAG");
         // the same gene under table 11 is not emittable
         HmmModel t11 = GeneTopology.build("genes", GeneticCode.TABLE_11, 4, 2);
         assertThat(emittable(t11, withTga, '+')).isFalse();
@@ -222,38 +220,6 @@ class GeneTopologyTest {
     }
 
     // ---- helpers ----
-
-    /**
-     * Triplets (read forwards) that three consecutive states can emit. Each triplet is tried after every history
-     * of preceding bases long enough for the highest order, so every state sees a context consistent with the
-     * bases before it; a triplet must be possible after all histories or after none.
-     */
-    static Set<String> emitted(HmmModel m, String... stateNames) {
-        State[] st = Arrays.stream(stateNames).map(n -> m.states().get(m.stateIndex(n))).toArray(State[]::new);
-        int k = Arrays.stream(st).mapToInt(State::order).max().orElseThrow();
-        Set<String> out = new TreeSet<>();
-        for (String w : NcbiTables.allCodons()) {
-            int nonzero = 0;
-            int histories = EmissionContexts.count(k);
-            for (int h = 0; h < histories; h++) {
-                String text = EmissionContexts.name(h, k) + w;
-                double p = 1;
-                for (int q = 0; q < 3; q++) {
-                    int pos = k + q;
-                    String context = text.substring(pos - st[q].order(), pos);
-                    p *= st[q].emission(EmissionContexts.row(context), BASES.indexOf(text.charAt(pos)));
-                }
-                if (p > 0) {
-                    nonzero++;
-                }
-            }
-            assertThat(nonzero).as("%s after some histories only", w).isIn(0, histories);
-            if (nonzero == histories) {
-                out.add(w);
-            }
-        }
-        return out;
-    }
 
     private static Set<String> reverseComplements(java.util.Collection<String> codons) {
         return codons.stream().map(NcbiTables::reverseComplement).collect(Collectors.toCollection(TreeSet::new));
