@@ -98,11 +98,14 @@ public final class SegmentFeatures {
                 Integer.toString(g.phase()), attrs));
     }
 
-    /** A planted (truth) segment of a simulated record: no score, only an {@code ID}. */
+    /**
+     * A planted (truth) segment of a simulated record: no score, only an {@code ID}; on its strand for a label
+     * with one (a CDS then needs a phase: 0 as written, the simulated path's frame is not tracked here).
+     */
     public Gff3Feature truth(String seqid, String labelName, long start, long end, FeatureIdAllocator ids) {
         Label label = reported(labelName);
-        return new Gff3Feature(seqid, SOURCE, label.featureType(), start, end, null, '.', ".",
-                List.of(Map.entry("ID", List.of(ids.next(label.name())))));
+        return new Gff3Feature(seqid, SOURCE, label.featureType(), start, end, null, label.strand(),
+                label.stranded() ? "0" : ".", List.of(Map.entry("ID", List.of(ids.next(label.name())))));
     }
 
     private Label reported(String name) {

@@ -95,7 +95,7 @@ class BadInputTest {
         CliRun.Result r = CliRun.run("annotate", "-m", "cpg-islands", "-o", outDir.resolve("calls.gff3").toString(),
                 CliRun.testData("fasta", "two-records.fa").toString());
         // the message also tells what would have worked
-        assertOneLineError(r, NO_INPUT, "cpg-islands: no such model file or shipped model (shipped: cpg-island)");
+        assertOneLineError(r, NO_INPUT, "cpg-islands: no such model file or shipped model (shipped: cpg-island, bacterial-genes)");
         assertNothingWritten(r, outDir);
 
         assertOneLineError(CliRun.run("model", "check", "cpg-islands"), NO_INPUT, "cpg-islands: no such model");

@@ -153,12 +153,30 @@ class EvaluateCommandTest {
         CliAssertions.assertOneLineError(r, ExitCodes.USAGE, "--format");
     }
 
-    /** A published GenBank record (test-data/README.md gives its provenance), recognised by its LOCUS line. */
+    /**
+     * A published GenBank record (test-data/README.md gives its provenance) as the reference, recognised by its
+     * LOCUS line: its ten CDS, typed here from its feature table as GFF3, match it exactly; one moved 3 bases is
+     * no longer exact but keeps its stop.
+     */
     @Test
-    void genbankTruthIsRecognisedAndNotYetRead() {
+    void genbankTruthIsReadFromItsCdsFeatures() throws IOException {
         String gbk = CliRun.testData("genbank", "NC_005816.gb.gz").toString();
-        CliRun.Result r = CliRun.run("evaluate", "--truth", gbk, "--predicted", predicted);
-        CliAssertions.assertOneLineError(r, ExitCodes.USAGE, "GenBank truth files are not supported yet");
+        StringBuilder gff = new StringBuilder("##gff-version 3\n");
+        String[] cds = {"87 1109 +", "1106 1888 +", "2925 3119 +", "3486 3857 +", "4343 4780 +", "4815 5888 -",
+                "6005 6421 +", "6664 7602 +", "7789 8088 -", "8088 8360 -"};
+        for (int i = 0; i < cds.length; i++) {
+            String[] c = cds[i].split(" ");
+            int start = Integer.parseInt(c[0]) + (i == 0 ? 3 : 0);
+            gff.append("NC_005816.1\tp\tCDS\t").append(start).append('\t').append(c[1]).append("\t.\t").append(c[2])
+                    .append("\t0\t.\n");
+        }
+        String pred = write("plasmid.gff3", gff.toString());
+        CliRun.Result r = CliRun.run("evaluate", "--truth", gbk, "--predicted", pred, "--format", "json");
+        assertThat(r.status()).as(r.stderr()).isZero();
+        JsonNode total = new ObjectMapper().readTree(r.stdout()).get("total");
+        assertThat(total.get("truth_features").asInt()).isEqualTo(10);
+        assertThat(total.get("exact").asInt()).isEqualTo(9);
+        assertThat(total.get("three_prime").asInt()).isEqualTo(10);
     }
 
     private static void collectNames(JsonNode node, List<String> names) {

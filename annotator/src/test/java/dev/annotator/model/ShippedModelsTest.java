@@ -19,7 +19,9 @@ class ShippedModelsTest {
     @Test
     void listNamesEachShippedModelWithItsDescription() {
         assertThat(ShippedModels.list()).containsExactly(new ShippedModel("cpg-island",
-                "CpG islands in genomic DNA: first-order base composition inside and outside islands"));
+                "CpG islands in genomic DNA: first-order base composition inside and outside islands"),
+                new ShippedModel("bacterial-genes", "Protein-coding genes on both strands (NCBI translation table 11), "
+                        + "codon states of order 4"));
     }
 
     @Test
@@ -49,7 +51,7 @@ class ShippedModelsTest {
     void unknownNameIsMissingInput() {
         assertThatThrownBy(() -> ModelLoader.load("cpg-islands"))
                 .isInstanceOf(MissingInputException.class)
-                .hasMessage("cpg-islands: no such model file or shipped model (shipped: cpg-island)");
+                .hasMessage("cpg-islands: no such model file or shipped model (shipped: cpg-island, bacterial-genes)");
     }
 
     @Test
