@@ -92,6 +92,10 @@ final class EvaluateCommand implements Callable<Integer> {
     @Option(names = "--force", description = "Replace the output file if it exists (default: refuse).")
     boolean force;
 
+    @Option(names = "--cds-parts", description = "GenBank reference: count each part of a joined (spliced) CDS as a "
+            + "feature of its own, so its bases count as coding (default: joined CDS are left out, as in training).")
+    boolean cdsParts;
+
     @Override
     public Integer call() {
         if ("-".equals(truth) && "-".equals(predicted)) {
@@ -130,7 +134,7 @@ final class EvaluateCommand implements Callable<Integer> {
     private TruthSource truthSource(StrandedGff3Reader gff3) {
         return switch (TruthFormat.detect(truth)) {
             case GFF3 -> gff3;
-            case GENBANK -> new GenbankTruth(parent.streams().in());
+            case GENBANK -> new GenbankTruth(parent.streams().in(), cdsParts);
         };
     }
 }

@@ -179,6 +179,43 @@ class EvaluateCommandTest {
         assertThat(total.get("three_prime").asInt()).isEqualTo(10);
     }
 
+    /** The chloroplast record: 70 simple CDS; with --cds-parts each part of its 15 joined CDS is added. */
+    @Test
+    void cdsPartsAddThePartsOfJoinedCds() throws IOException {
+        String gbk = CliRun.testData("genbank", "NC_000932.gb.gz").toString();
+        String none = write("none.gff3", "##gff-version 3\n");
+        JsonNode simple = new ObjectMapper().readTree(CliRun.run("evaluate", "--truth", gbk, "--predicted", none,
+                "--format", "json").stdout()).get("total");
+        JsonNode parts = new ObjectMapper().readTree(CliRun.run("evaluate", "--truth", gbk, "--predicted", none,
+                "--format", "json", "--cds-parts").stdout()).get("total");
+        assertThat(simple.get("truth_features").asInt()).isEqualTo(70);
+        // distinct parts of the record's joined CDS: the trans-spliced gene shares one part between two CDS, and
+        // the evaluator counts a feature once per position and strand
+        long partCount = joinedParts(gbk);
+        assertThat(parts.get("truth_features").asLong()).isEqualTo(70 + partCount);
+        assertThat(partCount).isGreaterThan(15);
+    }
+
+    /** Distinct parts of the CDS joins (interval and strand), read from the file's text. */
+    private static long joinedParts(String gbk) throws IOException {
+        String text;
+        try (var in = new java.util.zip.GZIPInputStream(java.nio.file.Files.newInputStream(Path.of(gbk)))) {
+            text = new String(in.readAllBytes(), java.nio.charset.StandardCharsets.US_ASCII);
+        }
+        java.util.regex.Matcher m = java.util.regex.Pattern.compile("\n {5}CDS {13}(\\S*join\\([^/]*?)\n {21}/")
+                .matcher(text);
+        java.util.Set<String> parts = new java.util.HashSet<>();
+        while (m.find()) {
+            String loc = m.group(1).replaceAll("\\s", "");
+            boolean outer = loc.startsWith("complement(join(");
+            for (String part : loc.split(",")) {
+                boolean inner = part.contains("complement(");
+                parts.add(part.replaceAll("[^0-9.]", "") + (outer ^ inner ? "-" : "+"));
+            }
+        }
+        return parts.size();
+    }
+
     private static void collectNames(JsonNode node, List<String> names) {
         if (node.isArray()) {
             node.forEach(n -> collectNames(n, names));

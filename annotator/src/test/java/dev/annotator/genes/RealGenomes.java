@@ -36,6 +36,11 @@ final class RealGenomes {
     }
 
     static Genome read(String file) {
+        return read(file, false);
+    }
+
+    /** @param withParts whether the parts of CDS joins count as reference features (see GenbankTruth) */
+    static Genome read(String file, boolean withParts) {
         String path = FOLDER.resolve(file).toString();
         if (!Files.isRegularFile(Path.of(path))) {
             throw new IllegalStateException(path + " is missing: the published records are part of the repository");
@@ -44,7 +49,7 @@ final class RealGenomes {
         try (GenbankRecordReader reader = GenbankRecordReader.open(path, InputStream.nullInputStream())) {
             r = reader.next();
         }
-        FeatureSet truth = new GenbankTruth(InputStream.nullInputStream()).read(path, "CDS");
+        FeatureSet truth = new GenbankTruth(InputStream.nullInputStream(), withParts).read(path, "CDS");
         return new Genome(path, r.name(), new String(r.bases(), StandardCharsets.US_ASCII), truth);
     }
 }
