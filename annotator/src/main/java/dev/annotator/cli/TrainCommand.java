@@ -54,6 +54,9 @@ import java.util.concurrent.Callable;
                 "      part1.fa",
                 "  annotator train -m m0.json --merge-counts p1.counts.json p2.counts.json \\",
                 "      -o m1.json",
+                "  annotator model gene-topology -o start.json",
+                "  annotator train -m start.json --method counting --labels relative.gbk \\",
+                "      -o genes.json relative.gbk",
                 "",
                 "Progress: one line per iteration on standard error (log-likelihood, gain, seconds).",
                 "",
@@ -74,16 +77,18 @@ final class TrainCommand implements Callable<Integer> {
     String model;
 
     @Option(names = "--method", paramLabel = "METHOD", converter = MethodConverter.class,
-            description = "counting (needs --labels and one state per label) or baum-welch.")
+            description = "counting (needs --labels, and one state per label or a gene model) or baum-welch.")
     TrainingMethod method;
 
     @Option(names = {"-o", "--output"}, paramLabel = "OUT_MODEL.json",
             description = "Where to write the trained model (- for standard output). Written only if the run succeeds.")
     String output;
 
-    @Option(names = "--labels", paramLabel = "TRUTH.gff3",
-            description = "Known features (GFF3): bases inside a feature whose type is a label's feature type get that "
-                    + "label, all others the background label. Baum-Welch keeps each base in its label's states.")
+    @Option(names = "--labels", paramLabel = "TRUTH",
+            description = "Known features, GFF3 or the CDS of a GenBank file: bases inside a feature whose type is a "
+                    + "label's feature type (for a gene model: CDS on the label's strand) get that label, all others "
+                    + "the background label. Baum-Welch keeps each base in its label's states. Input files may be "
+                    + "FASTA or GenBank.")
     String labels;
 
     @Option(names = "--pseudocount", paramLabel = "X", defaultValue = "1",

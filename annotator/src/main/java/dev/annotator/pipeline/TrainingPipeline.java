@@ -4,11 +4,9 @@ import dev.annotator.error.BadInputException;
 import dev.annotator.io.InputFormat;
 import dev.annotator.labels.GenbankLabels;
 import dev.annotator.labels.KnownLabels;
+import dev.annotator.labels.LabelGff3Reader;
 import dev.annotator.labels.LabelledFeatures;
 import dev.annotator.labels.LabelledInterval;
-import dev.annotator.train.WholeFeatureScreen;
-import java.util.TreeMap;
-import dev.annotator.labels.LabelGff3Reader;
 import dev.annotator.model.HmmModel;
 import dev.annotator.model.InputFingerprint;
 import dev.annotator.model.Label;
@@ -30,6 +28,7 @@ import dev.annotator.train.TrainingMethod;
 import dev.annotator.train.TrainingOptions;
 import dev.annotator.train.TrainingProvenance;
 import dev.annotator.train.TrainingResult;
+import dev.annotator.train.WholeFeatureScreen;
 
 import java.io.InputStream;
 import java.util.ArrayList;
@@ -37,6 +36,7 @@ import java.util.HashMap;
 import java.util.Iterator;
 import java.util.List;
 import java.util.Map;
+import java.util.TreeMap;
 import java.util.function.Consumer;
 
 /**

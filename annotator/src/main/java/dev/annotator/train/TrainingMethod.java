@@ -6,7 +6,10 @@ import java.util.Locale;
 
 /** How a model is fitted: counting along known labels, or Baum-Welch (expectation-maximisation). */
 public enum TrainingMethod {
-    /** Maximum-likelihood counts along the labelled state path (one state per label). */
+    /**
+     * Maximum-likelihood counts along the labelled state path: one state per label, or a gene model whose
+     * labelled genes fix the path.
+     */
     COUNTING(Training.COUNTING),
     /** Baum-Welch iterations, with labels restricting each base to its label's states when given. */
     BAUM_WELCH(Training.BAUM_WELCH);
