@@ -3,6 +3,7 @@ package dev.annotator.evaluate;
 import dev.annotator.error.BadInputException;
 import dev.annotator.error.IoFailureException;
 import dev.annotator.io.InputOpener;
+import dev.annotator.labels.Gff3Columns;
 import dev.annotator.labels.PercentDecoding;
 import dev.annotator.labels.StrandedFeature;
 
@@ -77,8 +78,8 @@ public final class StrandedGff3Reader implements TruthSource {
             if (seqid.isEmpty()) {
                 throw new BadInputException(where + "empty seqid");
             }
-            long start = coordinate(col[3], where, "start");
-            long end = coordinate(col[4], where, "end");
+            long start = Gff3Columns.coordinate(col[3], where, "start");
+            long end = Gff3Columns.coordinate(col[4], where, "end");
             if (end < start) {
                 throw new BadInputException(where + "end " + end + " is before start " + start);
             }
@@ -109,8 +110,8 @@ public final class StrandedGff3Reader implements TruthSource {
             throw new BadInputException(where + REGION + " needs a seqid, a start and an end");
         }
         String seqid = PercentDecoding.decode(f[1], where + REGION + " seqid");
-        long start = coordinate(f[2], where, REGION + " start");
-        long end = coordinate(f[3], where, REGION + " end");
+        long start = Gff3Columns.coordinate(f[2], where, REGION + " start");
+        long end = Gff3Columns.coordinate(f[3], where, REGION + " end");
         if (end < start) {
             throw new BadInputException(where + REGION + " end " + end + " is before start " + start);
         }
@@ -119,18 +120,5 @@ public final class StrandedGff3Reader implements TruthSource {
             throw new BadInputException(where + REGION + " gives record " + seqid + " a second, different end "
                     + end + " (was " + before + ")");
         }
-    }
-
-    private static long coordinate(String s, String where, String what) {
-        long v;
-        try {
-            v = Long.parseLong(s);
-        } catch (NumberFormatException e) {
-            throw new BadInputException(where + what + " '" + s + "' is not an integer");
-        }
-        if (v < 1) {
-            throw new BadInputException(where + what + " " + v + " is not a positive position (GFF3 counts from 1)");
-        }
-        return v;
     }
 }

@@ -122,8 +122,8 @@ public final class LabelGff3Reader {
                 throw new BadInputException(where + "empty seqid");
             }
             String type = PercentDecoding.decode(col[2], where + "column 3 (type)");
-            long start = coordinate(col[3], where, "start");
-            long end = coordinate(col[4], where, "end");
+            long start = Gff3Columns.coordinate(col[3], where, "start");
+            long end = Gff3Columns.coordinate(col[4], where, "end");
             if (end < start) {
                 throw new BadInputException(where + "end " + end + " is before start " + start);
             }
@@ -142,18 +142,5 @@ public final class LabelGff3Reader {
                     + String.join(", ", parts));
         }
         return new LabelledFeatures(name, bySeqid);
-    }
-
-    private static long coordinate(String s, String where, String what) {
-        long v;
-        try {
-            v = Long.parseLong(s);
-        } catch (NumberFormatException e) {
-            throw new BadInputException(where + what + " '" + s + "' is not an integer");
-        }
-        if (v < 1) {
-            throw new BadInputException(where + what + " " + v + " is not a positive position (GFF3 counts from 1)");
-        }
-        return v;
     }
 }

@@ -1,15 +1,14 @@
 package dev.annotator.cli;
 
+import dev.annotator.testing.MarkdownTable;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
 
 import java.io.IOException;
-import java.io.UncheckedIOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.stream.Stream;
 
@@ -39,39 +38,10 @@ class BadInputCorpusTest {
     Path tmp;
 
     static List<Row> rows() {
-        List<String> lines;
-        try {
-            lines = Files.readAllLines(README);
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
-        int start = lines.indexOf(lines.stream().filter(l -> l.startsWith(SECTION)).findFirst()
-                .orElseThrow(() -> new AssertionError("no section '" + SECTION + "' in " + README)));
-        List<Row> rows = new ArrayList<>();
-        for (String line : lines.subList(start + 1, lines.size())) {
-            if (line.startsWith("## ")) {
-                break;
-            }
-            if (!line.startsWith("| `")) {
-                continue; // prose, the header row and its rule
-            }
-            // no cell holds a '|', so the row splits cleanly; the ends of the line give two empty pieces
-            String[] cells = line.split("\\|", -1);
-            if (cells.length != 7) {
-                throw new AssertionError("row needs 5 cells: " + line);
-            }
-            rows.add(new Row(code(cells[1]), cells[2].strip(), cells[3].strip(), Integer.parseInt(cells[4].strip()),
-                    code(cells[5])));
-        }
-        return rows;
-    }
-
-    private static String code(String cell) {
-        String s = cell.strip();
-        if (s.length() < 2 || !s.startsWith("`") || !s.endsWith("`")) {
-            throw new AssertionError("expected a `code` cell: " + cell);
-        }
-        return s.substring(1, s.length() - 1);
+        return MarkdownTable.rows(README, SECTION, 5).stream()
+                .map(c -> new Row(MarkdownTable.code(c[1]), c[2].strip(), c[3].strip(),
+                        Integer.parseInt(c[4].strip()), MarkdownTable.code(c[5])))
+                .toList();
     }
 
     @Test

@@ -4,17 +4,13 @@ import dev.annotator.decode.GeneDetails;
 import dev.annotator.decode.RecordAnnotation;
 import dev.annotator.decode.Segment;
 import dev.annotator.model.Label;
+import dev.annotator.testing.HtsjdkGff3;
 import htsjdk.tribble.annotation.Strand;
 import htsjdk.tribble.gff.Gff3Codec;
-import htsjdk.tribble.readers.LineIterator;
-import htsjdk.tribble.readers.LineIteratorImpl;
-import htsjdk.tribble.readers.SynchronousLineReader;
 import org.junit.jupiter.api.Test;
 
 import java.io.IOException;
-import java.io.StringReader;
 import java.io.StringWriter;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 
@@ -70,7 +66,7 @@ class GeneFeaturesTest {
         w.close();
 
         // the codec hands out each feature once, linked to its parents and children
-        List<htsjdk.tribble.gff.Gff3Feature> all = decodeAll(sw.toString());
+        List<htsjdk.tribble.gff.Gff3Feature> all = HtsjdkGff3.decodeAll(sw.toString());
         List<htsjdk.tribble.gff.Gff3Feature> genes = all.stream().filter(f -> f.getType().equals("gene")).toList();
         List<htsjdk.tribble.gff.Gff3Feature> cds = all.stream().filter(f -> f.getType().equals("CDS")).toList();
         assertThat(genes).hasSize(5);
@@ -123,18 +119,5 @@ class GeneFeaturesTest {
 
     private static htsjdk.tribble.gff.Gff3Feature byStart(List<htsjdk.tribble.gff.Gff3Feature> features, int start) {
         return features.stream().filter(f -> f.getStart() == start).findFirst().orElseThrow();
-    }
-
-    private static List<htsjdk.tribble.gff.Gff3Feature> decodeAll(String text) throws IOException {
-        Gff3Codec codec = new Gff3Codec();
-        List<htsjdk.tribble.gff.Gff3Feature> out = new ArrayList<>();
-        LineIterator lines = new LineIteratorImpl(new SynchronousLineReader(new StringReader(text)));
-        while (!codec.isDone(lines)) {
-            htsjdk.tribble.gff.Gff3Feature f = codec.decode(lines);
-            if (f != null) {
-                out.add(f);
-            }
-        }
-        return out;
     }
 }

@@ -1,16 +1,13 @@
 package dev.annotator.gff;
 
+import dev.annotator.testing.HtsjdkGff3;
 import htsjdk.tribble.TribbleException;
 import htsjdk.tribble.annotation.Strand;
 import htsjdk.tribble.gff.Gff3Codec;
 import htsjdk.tribble.gff.SequenceRegion;
-import htsjdk.tribble.readers.LineIterator;
-import htsjdk.tribble.readers.LineIteratorImpl;
-import htsjdk.tribble.readers.SynchronousLineReader;
 import org.junit.jupiter.api.Test;
 
 import java.io.IOException;
-import java.io.StringReader;
 import java.io.StringWriter;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
@@ -67,7 +64,7 @@ class Gff3HtsjdkReadBackTest {
         w.close();
 
         Gff3Codec codec = new Gff3Codec();
-        List<htsjdk.tribble.gff.Gff3Feature> read = decodeAll(codec, sw.toString());
+        List<htsjdk.tribble.gff.Gff3Feature> read = HtsjdkGff3.decodeAll(codec, sw.toString());
 
         List<Expected> expected = List.of(
                 new Expected(SEQ1, "CpG_island", 1, 500, 0.912, Strand.POSITIVE, attrs(
@@ -110,7 +107,7 @@ class Gff3HtsjdkReadBackTest {
         w.close();
         assertThat(sw.toString()).endsWith("chr+1\tannotator\tCpG_island\t1\t2\t.\t?\t.\tID=a+b;note=  padded  \n");
 
-        htsjdk.tribble.gff.Gff3Feature f = decodeAll(new Gff3Codec(), sw.toString()).get(0);
+        htsjdk.tribble.gff.Gff3Feature f = HtsjdkGff3.decodeAll(new Gff3Codec(), sw.toString()).get(0);
         assertThat(f.getContig()).isEqualTo("chr 1");
         assertThat(f.getID()).isEqualTo("a b");
         assertThat(f.getAttribute("note")).containsExactly("padded");
@@ -122,19 +119,7 @@ class Gff3HtsjdkReadBackTest {
         // the spec's rule "only one ##sequence-region directive may be given for any given seqid" is enforced by
         // htsjdk as well; our writer refuses to produce such a file (Gff3WriterTest)
         String twice = "##gff-version 3\n##sequence-region a 1 10\n##sequence-region a 1 10\n";
-        assertThatThrownBy(() -> decodeAll(new Gff3Codec(), twice)).isInstanceOf(TribbleException.class);
-    }
-
-    private static List<htsjdk.tribble.gff.Gff3Feature> decodeAll(Gff3Codec codec, String text) throws IOException {
-        List<htsjdk.tribble.gff.Gff3Feature> out = new ArrayList<>();
-        LineIterator lines = new LineIteratorImpl(new SynchronousLineReader(new StringReader(text)));
-        while (!codec.isDone(lines)) {
-            htsjdk.tribble.gff.Gff3Feature f = codec.decode(lines);
-            if (f != null) {
-                out.add(f);
-            }
-        }
-        return out;
+        assertThatThrownBy(() -> HtsjdkGff3.decodeAll(new Gff3Codec(), twice)).isInstanceOf(TribbleException.class);
     }
 
     private static Gff3Feature feature(String seqid, String type, long start, long end, Double score, char strand,

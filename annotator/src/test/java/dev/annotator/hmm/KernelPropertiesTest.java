@@ -73,13 +73,13 @@ class KernelPropertiesTest {
         for (int s = 0; s < k; s++) {
             start[s] = p.start(s);
         }
-        path[0] = draw(start, rng);
+        path[0] = RandomModels.draw(start, rng);
         double[] row = new double[k];
         for (int t = 1; t < length; t++) {
             for (int j = 0; j < k; j++) {
                 row[j] = p.transition(path[t - 1], j);
             }
-            path[t] = draw(row, rng);
+            path[t] = RandomModels.draw(row, rng);
         }
         return path;
     }
@@ -96,25 +96,5 @@ class KernelPropertiesTest {
             }
         }
         return other;
-    }
-
-    private static int draw(double[] weights, SplittableRandom rng) {
-        double total = 0;
-        for (double w : weights) {
-            total += w;
-        }
-        double u = rng.nextDouble() * total;
-        for (int i = 0; i < weights.length; i++) {
-            u -= weights[i];
-            if (u < 0 && weights[i] > 0) {
-                return i;
-            }
-        }
-        for (int i = weights.length - 1; i >= 0; i--) {
-            if (weights[i] > 0) {
-                return i;
-            }
-        }
-        throw new IllegalStateException("no state with positive weight");
     }
 }

@@ -3,6 +3,7 @@ package dev.annotator.hmm;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.SplittableRandom;
+import java.util.function.Supplier;
 
 /** Random valid parameter sets and sequences for kernel tests. */
 public final class RandomModels {
@@ -36,6 +37,15 @@ public final class RandomModels {
                 }
             }
         }
+        return assemble(rng, start, pairs, probs, maxOrder, () -> distribution(rng, 4));
+    }
+
+    /**
+     * Parameters from listed transitions (pairs {from, to} with their probabilities), each state given a random
+     * order up to {@code maxOrder} and each emission row drawn from {@code emissionRow}, in that order from rng.
+     */
+    static HmmParameters assemble(SplittableRandom rng, double[] start, List<int[]> pairs, List<Double> probs,
+                                  int maxOrder, Supplier<double[]> emissionRow) {
         int[] from = new int[pairs.size()];
         int[] to = new int[pairs.size()];
         double[] prob = new double[pairs.size()];
@@ -44,14 +54,14 @@ public final class RandomModels {
             to[t] = pairs.get(t)[1];
             prob[t] = probs.get(t);
         }
-        int[] orders = new int[states];
-        double[][] tables = new double[states][];
-        for (int s = 0; s < states; s++) {
+        int[] orders = new int[start.length];
+        double[][] tables = new double[orders.length][];
+        for (int s = 0; s < orders.length; s++) {
             orders[s] = rng.nextInt(maxOrder + 1);
             int rows = 1 << (2 * orders[s]);
             tables[s] = new double[rows * 4];
             for (int r = 0; r < rows; r++) {
-                System.arraycopy(distribution(rng, 4), 0, tables[s], r * 4, 4);
+                System.arraycopy(emissionRow.get(), 0, tables[s], r * 4, 4);
             }
         }
         return new HmmParameters(start, from, to, prob, orders, tables);
@@ -69,6 +79,30 @@ public final class RandomModels {
             d[i] /= sum;
         }
         return d;
+    }
+
+    /**
+     * An index drawn with chance proportional to its weight; never one of weight 0. Rounding can leave the draw
+     * past the last entry, which then goes to the last positive weight.
+     */
+    static int draw(double[] weights, SplittableRandom rng) {
+        double total = 0;
+        for (double w : weights) {
+            total += w;
+        }
+        double u = rng.nextDouble() * total;
+        for (int i = 0; i < weights.length; i++) {
+            u -= weights[i];
+            if (u < 0 && weights[i] > 0) {
+                return i;
+            }
+        }
+        for (int i = weights.length - 1; i >= 0; i--) {
+            if (weights[i] > 0) {
+                return i;
+            }
+        }
+        throw new IllegalStateException("no state with positive weight");
     }
 
     /** Random bases, with N at the given rate and lowercase at random. */

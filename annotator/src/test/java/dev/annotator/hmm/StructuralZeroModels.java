@@ -26,25 +26,7 @@ final class StructuralZeroModels {
                 }
             }
         }
-        int[] from = new int[pairs.size()];
-        int[] to = new int[pairs.size()];
-        double[] prob = new double[pairs.size()];
-        for (int t = 0; t < pairs.size(); t++) {
-            from[t] = pairs.get(t)[0];
-            to[t] = pairs.get(t)[1];
-            prob[t] = probs.get(t);
-        }
-        int[] orders = new int[states];
-        double[][] tables = new double[states][];
-        for (int s = 0; s < states; s++) {
-            orders[s] = rng.nextInt(maxOrder + 1);
-            int rows = 1 << (2 * orders[s]);
-            tables[s] = new double[rows * 4];
-            for (int r = 0; r < rows; r++) {
-                System.arraycopy(sparseDistribution(rng, 4, zeroRate), 0, tables[s], r * 4, 4);
-            }
-        }
-        return new HmmParameters(start, from, to, prob, orders, tables);
+        return RandomModels.assemble(rng, start, pairs, probs, maxOrder, () -> sparseDistribution(rng, 4, zeroRate));
     }
 
     /** A probability vector with entries set to exactly 0 at the given rate, never all of them. */
@@ -79,7 +61,7 @@ final class StructuralZeroModels {
             for (int j = 0; j < k; j++) {
                 weights[j] = t == 0 ? p.start(j) : p.transition(state, j);
             }
-            state = draw(weights, rng);
+            state = RandomModels.draw(weights, rng);
             int order = Math.min(p.order(state), t);
             int context = 0;
             for (int back = order; back >= 1; back--) {
@@ -90,7 +72,7 @@ final class StructuralZeroModels {
             for (int b = 0; b < 4; b++) {
                 row[b] = p.emission(state, order, context, b);
             }
-            codes[t] = draw(row, rng);
+            codes[t] = RandomModels.draw(row, rng);
             seq[t] = (byte) "ACGT".charAt(codes[t]);
         }
         for (int t = 0; t < length; t++) {
@@ -99,24 +81,5 @@ final class StructuralZeroModels {
             }
         }
         return seq;
-    }
-
-    private static int draw(double[] weights, SplittableRandom rng) {
-        double total = 0;
-        for (double w : weights) {
-            total += w;
-        }
-        double u = rng.nextDouble() * total;
-        int last = 0;
-        for (int i = 0; i < weights.length; i++) {
-            if (weights[i] > 0) {
-                last = i;
-                u -= weights[i];
-                if (u < 0) {
-                    return i;
-                }
-            }
-        }
-        return last;
     }
 }

@@ -4,16 +4,15 @@ import dev.annotator.error.AnnotatorException;
 import dev.annotator.error.BadInputException;
 import dev.annotator.seq.GenbankRecordReader;
 import dev.annotator.seq.PublishedGenbankRecords;
+import dev.annotator.testing.MarkdownTable;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
 
 import java.io.IOException;
 import java.io.InputStream;
-import java.io.UncheckedIOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.stream.Stream;
 
@@ -38,32 +37,9 @@ class GenbankBadInputTest {
     }
 
     static List<Row> rows() {
-        List<String> lines;
-        try {
-            lines = Files.readAllLines(README);
-        } catch (IOException e) {
-            throw new UncheckedIOException(e);
-        }
-        int start = lines.indexOf(lines.stream().filter(l -> l.startsWith(SECTION)).findFirst()
-                .orElseThrow(() -> new AssertionError("no section '" + SECTION + "' in " + README)));
-        List<Row> rows = new ArrayList<>();
-        for (String line : lines.subList(start + 1, lines.size())) {
-            if (line.startsWith("## ")) {
-                break;
-            }
-            if (line.startsWith("| `")) {
-                String[] cells = line.split("\\|", -1); // no cell holds a '|'
-                assertThat(cells).as(line).hasSize(6);
-                rows.add(new Row(code(cells[1]), cells[2].strip(), code(cells[4])));
-            }
-        }
-        return rows;
-    }
-
-    private static String code(String cell) {
-        String s = cell.strip();
-        assertThat(s).as("a `code` cell").startsWith("`").endsWith("`");
-        return s.substring(1, s.length() - 1);
+        return MarkdownTable.rows(README, SECTION, 4).stream()
+                .map(c -> new Row(MarkdownTable.code(c[1]), c[2].strip(), MarkdownTable.code(c[4])))
+                .toList();
     }
 
     @Test

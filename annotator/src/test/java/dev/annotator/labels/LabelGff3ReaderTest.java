@@ -5,10 +5,8 @@ import dev.annotator.gff.Gff3Feature;
 import dev.annotator.gff.Gff3Writer;
 import dev.annotator.model.HmmModel;
 import dev.annotator.model.ShippedModels;
+import dev.annotator.testing.HtsjdkGff3;
 import htsjdk.tribble.gff.Gff3Codec;
-import htsjdk.tribble.readers.LineIterator;
-import htsjdk.tribble.readers.LineIteratorImpl;
-import htsjdk.tribble.readers.SynchronousLineReader;
 import org.junit.jupiter.api.Test;
 
 import java.io.BufferedReader;
@@ -45,7 +43,7 @@ class LabelGff3ReaderTest {
         w.close();
         String text = sw.toString();
         KnownLabels ours = read(text, new ArrayList<>());
-        List<htsjdk.tribble.gff.Gff3Feature> theirs = htsjdk(text);
+        List<htsjdk.tribble.gff.Gff3Feature> theirs = HtsjdkGff3.decodeAll(text);
         assertThat(theirs).hasSize(3);
         for (htsjdk.tribble.gff.Gff3Feature f : theirs) {
             assertThat(ours.seqids()).contains(f.getContig());
@@ -109,18 +107,5 @@ class LabelGff3ReaderTest {
     private static KnownLabels read(String text, List<String> warnings) throws IOException {
         return new LabelGff3Reader(ISLANDS).read(new BufferedReader(new StringReader(text)), "labels.gff3",
                 warnings::add);
-    }
-
-    private static List<htsjdk.tribble.gff.Gff3Feature> htsjdk(String text) throws IOException {
-        Gff3Codec codec = new Gff3Codec();
-        List<htsjdk.tribble.gff.Gff3Feature> out = new ArrayList<>();
-        LineIterator lines = new LineIteratorImpl(new SynchronousLineReader(new StringReader(text)));
-        while (!codec.isDone(lines)) {
-            htsjdk.tribble.gff.Gff3Feature f = codec.decode(lines);
-            if (f != null) {
-                out.add(f);
-            }
-        }
-        return out;
     }
 }
