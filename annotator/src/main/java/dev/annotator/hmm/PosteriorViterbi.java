@@ -85,6 +85,27 @@ public final class PosteriorViterbi {
     }
 
     /**
+     * As {@link #decode(byte[])}, handing each block of posteriors (and emission rows) also to {@code observer}
+     * once the path's own pass has read it, so that callers needing per-base values beside the path do not run
+     * forward-backward again.
+     *
+     * @throws ImpossibleSequenceException if the model cannot emit the sequence
+     * @throws IllegalArgumentException    if length x states back-pointers do not fit in one Java array
+     */
+    public PosteriorDecoding decode(byte[] seq, PosteriorBlockSink observer) {
+        int n = seq.length;
+        if (n == 0) {
+            return new PosteriorDecoding(new PosteriorPath(new byte[0], 0.0), 0.0);
+        }
+        PosteriorMaxSumPass pass = newPass(n);
+        double logLikelihood = forwardBackward.run(seq, (start, end, posterior, emission) -> {
+            pass.block(start, end, posterior, emission);
+            observer.block(start, end, posterior, emission);
+        });
+        return new PosteriorDecoding(pass.finish(), logLikelihood);
+    }
+
+    /**
      * Decoding from posteriors computed elsewhere: {@code posterior[t * stateCount + s]} = P(state s at t | data),
      * with exactly 0 where the state cannot be at t.
      *
