@@ -29,6 +29,8 @@ public final class ForwardBackward {
     private static final double RESCALE_BELOW = 0x1p-256;
     private static final double RESCALE_BY = 0x1p256;
     private static final double LOG_RESCALE = 256 * Math.log(2);
+    /** Emission rows at least this long are copied by a copy call rather than a loop. */
+    private static final int COPY_CALL_FROM = 16;
 
     private final HmmParameters p;
     private final int k;
@@ -199,7 +201,11 @@ public final class ForwardBackward {
         return logLik;
     }
 
-    /** Each base's emission row into {@code emis}; a plain loop, since a copy call per base of 2 values costs more. */
+    /**
+     * Each base's emission row into {@code emis}: a plain loop for short rows (a copy call per base of 2 values
+     * costs more), a copy call for long ones (a loop of a few dozen turns runs through the compiler's pre- and
+     * post-loops each time).
+     */
     private void emissionRows(int[] sy, int len, double[] emis) {
         final double[] e = em;
         if (twoStates) {
@@ -208,12 +214,16 @@ public final class ForwardBackward {
                 emis[2 * i] = e[y];
                 emis[2 * i + 1] = e[y + 1];
             }
-        } else {
+        } else if (k < COPY_CALL_FROM) {
             for (int i = 0, off = 0; i < len; i++, off += k) {
                 int y = sy[i] * k;
                 for (int s = 0; s < k; s++) {
                     emis[off + s] = e[y + s];
                 }
+            }
+        } else {
+            for (int i = 0, off = 0; i < len; i++, off += k) {
+                System.arraycopy(e, sy[i] * k, emis, off, k);
             }
         }
     }
