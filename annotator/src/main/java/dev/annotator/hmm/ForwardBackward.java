@@ -24,8 +24,11 @@ import java.util.Arrays;
  * call allocates its own work arrays.
  */
 public final class ForwardBackward {
-    /** Default block length: a block's work arrays stay within a few hundred kB for small topologies. */
+    /** Block length for small topologies (work arrays of a few hundred kB); see {@link #blockFor}. */
     public static final int DEFAULT_BLOCK = 1 << 14;
+    /** Bytes one work array of a block may take before the block is shortened (see {@link #blockFor}). */
+    public static final int BLOCK_ARRAY_BYTES = 1 << 18;
+    private static final int MIN_BLOCK = 1 << 10;
     private static final double RESCALE_BELOW = 0x1p-256;
     private static final double RESCALE_BY = 0x1p256;
     private static final double LOG_RESCALE = 256 * Math.log(2);
@@ -52,7 +55,17 @@ public final class ForwardBackward {
     private final double[] padSuccProb;
 
     public ForwardBackward(HmmParameters parameters) {
-        this(parameters, DEFAULT_BLOCK);
+        this(parameters, blockFor(parameters.stateCount()));
+    }
+
+    /**
+     * The block length for a topology: {@link #DEFAULT_BLOCK}, shortened for larger topologies so that a block's
+     * work arrays (forward vectors, posteriors, emission rows: length x states doubles each) stay within
+     * {@link #BLOCK_ARRAY_BYTES} and a block's posteriors are still in cache when the sink reads them.
+     */
+    public static int blockFor(int states) {
+        int block = BLOCK_ARRAY_BYTES / (Double.BYTES * Math.max(1, states));
+        return Math.max(MIN_BLOCK, Math.min(DEFAULT_BLOCK, Integer.highestOneBit(block)));
     }
 
     public ForwardBackward(HmmParameters parameters, int blockSize) {

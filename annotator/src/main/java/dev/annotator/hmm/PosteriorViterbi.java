@@ -37,7 +37,7 @@ public final class PosteriorViterbi {
     private final int[] succState;
 
     public PosteriorViterbi(HmmParameters parameters) {
-        this(parameters, ForwardBackward.DEFAULT_BLOCK);
+        this(parameters, ForwardBackward.blockFor(parameters.stateCount()));
     }
 
     /** @param blockSize forward-backward checkpoint block; results do not depend on it */
