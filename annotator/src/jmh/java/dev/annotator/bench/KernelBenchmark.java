@@ -5,9 +5,12 @@ import dev.annotator.hmm.ExpectedCounts;
 import dev.annotator.hmm.ForwardBackward;
 import dev.annotator.hmm.HmmParameters;
 import dev.annotator.hmm.PosteriorBlockSink;
+import dev.annotator.hmm.PosteriorViterbi;
 import dev.annotator.hmm.Viterbi;
+import dev.annotator.model.HmmModel;
 import dev.annotator.model.ModelCompiler;
 import dev.annotator.model.ModelLoader;
+import dev.annotator.simulate.SequenceSimulator;
 import org.openjdk.jmh.annotations.Benchmark;
 import org.openjdk.jmh.annotations.BenchmarkMode;
 import org.openjdk.jmh.annotations.Fork;
@@ -25,13 +28,16 @@ import java.util.SplittableRandom;
 import java.util.concurrent.TimeUnit;
 
 /**
- * Kernel throughput per topology (forward, forward-backward with posteriors, Viterbi, Baum-Welch expected counts)
- * on 1 Mbp of random sequence (each benchmark in its own JVM fork). The score is
+ * Kernel throughput per topology (forward, forward-backward with posteriors, Viterbi, posterior-Viterbi, Baum-Welch
+ * expected counts) on 1 Mbp of sequence (each benchmark in its own JVM fork). The score is
  * milliseconds per 1 Mbp: Mbp/s = 1000 / score.
  *
  * <p>Topologies: {@code island} is the shipped two-state first-order model; {@code dense3} a three-state
  * second-order model with every transition allowed; {@code sparse20} a twenty-state model with orders up to 5
- * and about three allowed transitions per state, the shape of a coding-structure topology.
+ * and about three allowed transitions per state, the shape of a coding-structure topology; {@code genes} the
+ * shipped 43-state gene model (both strands, sparse transitions, orders up to 4). The first three run on uniform
+ * random bases; {@code genes} on a sequence sampled from the model itself, so that genes, start and stop codons
+ * occur as the decoder meets them in a genome.
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)
@@ -42,12 +48,13 @@ import java.util.concurrent.TimeUnit;
 public class KernelBenchmark {
     private static final int LENGTH = 1_000_000;
 
-    @Param({"island", "dense3", "sparse20"})
+    @Param({"island", "dense3", "sparse20", "genes"})
     public String topology;
 
     private byte[] sequence;
     private ForwardBackward forwardBackward;
     private Viterbi viterbi;
+    private PosteriorViterbi posteriorViterbi;
     private BaumWelchKernel baumWelch;
 
     @Setup
@@ -56,12 +63,19 @@ public class KernelBenchmark {
             case "island" -> ModelCompiler.compile(ModelLoader.load("cpg-island"));
             case "dense3" -> randomModel(new SplittableRandom(3), 3, 2, 3);
             case "sparse20" -> randomModel(new SplittableRandom(20), 20, 5, 3);
+            case "genes" -> ModelCompiler.compile(ModelLoader.load("bacterial-genes"));
             default -> throw new IllegalArgumentException(topology);
         };
         forwardBackward = new ForwardBackward(p);
         viterbi = new Viterbi(p);
+        posteriorViterbi = new PosteriorViterbi(p);
         baumWelch = new BaumWelchKernel(p);
         SplittableRandom rng = new SplittableRandom(1);
+        if (topology.equals("genes")) {
+            HmmModel genes = ModelLoader.load("bacterial-genes");
+            sequence = new SequenceSimulator(genes).sample("bench", LENGTH, rng).record().bases();
+            return;
+        }
         sequence = new byte[LENGTH];
         for (int i = 0; i < LENGTH; i++) {
             sequence[i] = (byte) "ACGT".charAt(rng.nextInt(4));
@@ -83,6 +97,12 @@ public class KernelBenchmark {
     @Benchmark
     public double viterbi() {
         return viterbi.decode(sequence).logProbability();
+    }
+
+    /** Forward-backward feeding the backward-in-time max-sum pass, then the path read off. */
+    @Benchmark
+    public double posteriorViterbi() {
+        return posteriorViterbi.decode(sequence).posteriorSum();
     }
 
     /** One Baum-Welch E-step: expected start, transition and emission counts (one thread, no fork). */

@@ -3,6 +3,8 @@ package dev.annotator.decode;
 import dev.annotator.hmm.BoundaryVectors;
 import dev.annotator.hmm.ForwardBackward;
 import dev.annotator.hmm.HmmParameters;
+import dev.annotator.hmm.PosteriorBlockSink;
+import dev.annotator.hmm.PosteriorDecoding;
 import dev.annotator.hmm.PosteriorViterbi;
 import dev.annotator.hmm.Viterbi;
 import dev.annotator.model.HmmModel;
@@ -143,25 +145,32 @@ public final class Annotator {
         int k = parameters.stateCount();
         byte[] statePath = null;
         if (method != DecodeMethod.POSTERIOR) {
-            statePath = method == DecodeMethod.VITERBI ? viterbi.decode(bases).path()
-                    : posteriorViterbi.decode(bases).path();
-            List<RawSegment> pathRuns = PathRuns.runsOf(labels, statePath, stateToReported);
-            if (longestOrfStarts != null) {
-                pathRuns = longestOrfStarts.extend(bases, statePath, pathRuns, labels);
+            // one forward-backward pass gives the path (posterior-Viterbi), the per-base evidence of the runs and
+            // the profile; the runs are known only once the path is read off, so the evidence is kept per base
+            BaseEvidence evidence = new BaseEvidence(labels, bases.length, k);
+            WindowProfile whole = profile.any()
+                    ? new WindowProfile(labels, trackLabel, profile, 0, bases.length, bases.length, k) : null;
+            PosteriorBlockSink sink = whole == null ? evidence : (s, e, p, em) -> {
+                evidence.block(s, e, p, em);
+                whole.block(s, e, p, em);
+            };
+            if (method == DecodeMethod.VITERBI) {
+                statePath = viterbi.decode(bases).path();
+                logLik = forwardBackward.run(bases, sink);
+            } else {
+                PosteriorDecoding decoding = posteriorViterbi.decode(bases, sink);
+                statePath = decoding.path().path();
+                logLik = decoding.logLikelihood();
             }
-            PathRuns runs = new PathRuns(pathRuns, k);
-            if (profile.any()) {
-                WindowProfile whole = new WindowProfile(labels, trackLabel, profile, 0, bases.length, bases.length, k);
-                logLik = forwardBackward.run(bases, (s, e, p, em) -> {
-                    runs.block(s, e, p, em);
-                    whole.block(s, e, p, em);
-                });
+            if (whole != null) {
                 whole.finish();
                 windowProfiles = List.of(whole);
-            } else {
-                logLik = forwardBackward.run(bases, runs);
             }
-            raw = runs.segments();
+            raw = PathRuns.runsOf(labels, statePath, stateToReported);
+            if (longestOrfStarts != null) {
+                raw = longestOrfStarts.extend(bases, statePath, raw, labels);
+            }
+            raw.forEach(evidence::collect);
             progress.accept(bases.length);
         } else {
             int n = bases.length;

@@ -1,40 +1,14 @@
 package dev.annotator.decode;
 
-import dev.annotator.hmm.PosteriorBlockSink;
-
 import java.util.ArrayList;
 import java.util.List;
 
-/**
- * Viterbi decoding: the runs of each reported label along the most probable path. The runs are fixed by the path;
- * the backward pass then streams posteriors through them (last block first) to give each run its confidence.
- */
-final class PathRuns implements PosteriorBlockSink {
-    private final List<RawSegment> runs;
-    private final int stateCount;
-    // runs sorted by start; cursor walks them backwards as positions descend
-    private int cursor;
-    // reach[i]: the furthest end of runs 0..i, so a position's runs are found walking back from the cursor
-    private final int[] reach;
-
-    PathRuns(ReportedLabels labels, byte[] path, int[] stateToReported, int stateCount) {
-        this(runsOf(labels, path, stateToReported), stateCount);
+/** Viterbi and posterior-Viterbi decoding: the runs of each reported label along a decoded state path. */
+final class PathRuns {
+    private PathRuns() {
     }
 
-    /** Statistics over given runs: sorted by start, possibly overlapping. */
-    PathRuns(List<RawSegment> runs, int stateCount) {
-        this.runs = runs;
-        this.stateCount = stateCount;
-        this.cursor = runs.size() - 1;
-        this.reach = new int[runs.size()];
-        int max = 0;
-        for (int i = 0; i < runs.size(); i++) {
-            max = Math.max(max, runs.get(i).endExclusive());
-            reach[i] = max;
-        }
-    }
-
-    /** The maximal runs of one reported label along a path, in order. */
+    /** The maximal runs of one reported label along a path, in order, with empty statistics. */
     static List<RawSegment> runsOf(ReportedLabels labels, byte[] path, int[] stateToReported) {
         List<RawSegment> found = new ArrayList<>();
         int n = path.length;
@@ -51,27 +25,5 @@ final class PathRuns implements PosteriorBlockSink {
             t = u;
         }
         return found;
-    }
-
-    @Override
-    public void block(int start, int end, double[] posterior, double[] emission) {
-        for (int t = end - 1; t >= start; t--) {
-            while (cursor >= 0 && runs.get(cursor).start0() > t) {
-                cursor--;
-            }
-            if (cursor < 0) {
-                return;
-            }
-            for (int i = cursor; i >= 0 && reach[i] > t; i--) {
-                RawSegment run = runs.get(i);
-                if (t < run.endExclusive()) {
-                    run.stats().add(posterior, emission, (t - start) * stateCount);
-                }
-            }
-        }
-    }
-
-    List<RawSegment> segments() {
-        return runs;
     }
 }

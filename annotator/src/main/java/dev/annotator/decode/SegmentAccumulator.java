@@ -53,10 +53,14 @@ final class SegmentAccumulator {
     }
 
     void add(double labelPosterior, double[] posterior, double[] emission, int off) {
+        add(labelPosterior, emissionRatio(inLabel, labelPosterior, posterior, emission, off));
+    }
+
+    /** Adds one base given its label posterior and its {@link #emissionRatio}. */
+    void add(double labelPosterior, double ratio) {
         posteriorSum += labelPosterior;
         posteriorMin = Math.min(posteriorMin, labelPosterior);
         count++;
-        double ratio = emissionRatio(inLabel, labelPosterior, posterior, emission, off);
         if (ratio != 1) {
             logOdds += Math.log(ratio);
         }

@@ -24,11 +24,16 @@ import java.util.Arrays;
  * call allocates its own work arrays.
  */
 public final class ForwardBackward {
-    /** Default block length: a block's work arrays stay within a few hundred kB for small topologies. */
+    /** Block length for small topologies (work arrays of a few hundred kB); see {@link #blockFor}. */
     public static final int DEFAULT_BLOCK = 1 << 14;
+    /** Bytes one work array of a block may take before the block is shortened (see {@link #blockFor}). */
+    public static final int BLOCK_ARRAY_BYTES = 1 << 18;
+    private static final int MIN_BLOCK = 1 << 10;
     private static final double RESCALE_BELOW = 0x1p-256;
     private static final double RESCALE_BY = 0x1p256;
     private static final double LOG_RESCALE = 256 * Math.log(2);
+    /** Emission rows at least this long are copied by a copy call rather than a loop. */
+    private static final int COPY_CALL_FROM = 16;
 
     private final HmmParameters p;
     private final int k;
@@ -50,7 +55,17 @@ public final class ForwardBackward {
     private final double[] padSuccProb;
 
     public ForwardBackward(HmmParameters parameters) {
-        this(parameters, DEFAULT_BLOCK);
+        this(parameters, blockFor(parameters.stateCount()));
+    }
+
+    /**
+     * The block length for a topology: {@link #DEFAULT_BLOCK}, shortened for larger topologies so that a block's
+     * work arrays (forward vectors, posteriors, emission rows: length x states doubles each) stay within
+     * {@link #BLOCK_ARRAY_BYTES} and a block's posteriors are still in cache when the sink reads them.
+     */
+    public static int blockFor(int states) {
+        int block = BLOCK_ARRAY_BYTES / (Double.BYTES * Math.max(1, states));
+        return Math.max(MIN_BLOCK, Math.min(DEFAULT_BLOCK, Integer.highestOneBit(block)));
     }
 
     public ForwardBackward(HmmParameters parameters, int blockSize) {
@@ -199,7 +214,11 @@ public final class ForwardBackward {
         return logLik;
     }
 
-    /** Each base's emission row into {@code emis}; a plain loop, since a copy call per base of 2 values costs more. */
+    /**
+     * Each base's emission row into {@code emis}: a plain loop for short rows (a copy call per base of 2 values
+     * costs more), a copy call for long ones (a loop of a few dozen turns runs through the compiler's pre- and
+     * post-loops each time).
+     */
     private void emissionRows(int[] sy, int len, double[] emis) {
         final double[] e = em;
         if (twoStates) {
@@ -208,12 +227,16 @@ public final class ForwardBackward {
                 emis[2 * i] = e[y];
                 emis[2 * i + 1] = e[y + 1];
             }
-        } else {
+        } else if (k < COPY_CALL_FROM) {
             for (int i = 0, off = 0; i < len; i++, off += k) {
                 int y = sy[i] * k;
                 for (int s = 0; s < k; s++) {
                     emis[off + s] = e[y + s];
                 }
+            }
+        } else {
+            for (int i = 0, off = 0; i < len; i++, off += k) {
+                System.arraycopy(e, sy[i] * k, emis, off, k);
             }
         }
     }

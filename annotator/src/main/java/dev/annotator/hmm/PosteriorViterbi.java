@@ -37,7 +37,7 @@ public final class PosteriorViterbi {
     private final int[] succState;
 
     public PosteriorViterbi(HmmParameters parameters) {
-        this(parameters, ForwardBackward.DEFAULT_BLOCK);
+        this(parameters, ForwardBackward.blockFor(parameters.stateCount()));
     }
 
     /** @param blockSize forward-backward checkpoint block; results do not depend on it */
@@ -82,6 +82,27 @@ public final class PosteriorViterbi {
         PosteriorMaxSumPass pass = newPass(n);
         forwardBackward.run(seq, pass);
         return pass.finish();
+    }
+
+    /**
+     * As {@link #decode(byte[])}, handing each block of posteriors (and emission rows) also to {@code observer}
+     * once the path's own pass has read it, so that callers needing per-base values beside the path do not run
+     * forward-backward again.
+     *
+     * @throws ImpossibleSequenceException if the model cannot emit the sequence
+     * @throws IllegalArgumentException    if length x states back-pointers do not fit in one Java array
+     */
+    public PosteriorDecoding decode(byte[] seq, PosteriorBlockSink observer) {
+        int n = seq.length;
+        if (n == 0) {
+            return new PosteriorDecoding(new PosteriorPath(new byte[0], 0.0), 0.0);
+        }
+        PosteriorMaxSumPass pass = newPass(n);
+        double logLikelihood = forwardBackward.run(seq, (start, end, posterior, emission) -> {
+            pass.block(start, end, posterior, emission);
+            observer.block(start, end, posterior, emission);
+        });
+        return new PosteriorDecoding(pass.finish(), logLikelihood);
     }
 
     /**

@@ -81,7 +81,8 @@ public final class AnnotationPipeline {
         StreamFingerprint fingerprint = options.profile().plotPoints() > 0 ? new StreamFingerprint() : null;
         dev.annotator.io.RawInputObserver observer = tracker == null ? fingerprint
                 : fingerprint == null ? tracker : tracker.andThen(fingerprint);
-        MemoryBudget budget = MemoryBudget.ofThisJvm(model.stateCount(), options.method());
+        MemoryBudget budget = MemoryBudget.ofThisJvm(model.stateCount(), model.reportedLabels().size(),
+                options.method());
         try (SequenceReader reader = SequenceFiles.open(input, stdin, warnings, budget.recordLimit(), observer);
              OrderedParallelMap<SequenceRecord, RecordAnnotation> map = new OrderedParallelMap<>(options.threads(),
                      r -> decode(r, inputName, tracker), sink, SequenceRecord::length, budget.basesInFlight())) {

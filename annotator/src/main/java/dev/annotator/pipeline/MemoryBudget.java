@@ -11,9 +11,11 @@ import java.util.Locale;
  * OutOfMemoryError somewhere in the parser or a kernel.
  *
  * <p>Bytes per base, from the code as it stands: reading a record peaks at about {@value #READ_BYTES_PER_BASE}
- * (see {@code FastaRecordReader}); a record being decoded holds its own byte per base, plus for Viterbi one
- * back-pointer byte per state and a one-byte state per base (the path). Posterior decoding needs nothing per base beyond
- * the record: the kernels work in fixed-size blocks.
+ * (see {@code FastaRecordReader}); a record being decoded holds its own byte per base, plus for Viterbi and
+ * posterior-Viterbi one back-pointer byte per state, a one-byte state per base (the path) and
+ * {@value #EVIDENCE_BYTES_PER_LABEL} bytes per reported label (its posterior and likelihood ratio at each base, kept
+ * from the one forward-backward pass for the statistics of the path's runs; see {@code BaseEvidence}). Posterior
+ * decoding needs nothing per base beyond the record: the kernels work in fixed-size blocks.
  *
  * @param recordLimit   the longest record the reader accepts: one record read while as many bases as
  *                      {@code basesInFlight} are being decoded still fits in {@value #USABLE_PERCENT}% of the heap
@@ -23,10 +25,12 @@ record MemoryBudget(RecordLengthLimit recordLimit, long basesInFlight) {
     static final int READ_BYTES_PER_BASE = 4;
     /** The rest of the heap is left for the model, buffers, output and the collector's working room. */
     static final int USABLE_PERCENT = 80;
+    static final int EVIDENCE_BYTES_PER_LABEL = 16;
 
-    static MemoryBudget of(long maxHeapBytes, int states, DecodeMethod method) {
+    static MemoryBudget of(long maxHeapBytes, int states, int reportedLabels, DecodeMethod method) {
         boolean pathInMemory = method != DecodeMethod.POSTERIOR;
-        long decodeBytesPerBase = 1 + (pathInMemory ? states + 1L : 0);
+        long decodeBytesPerBase = 1 + (pathInMemory ? states + 1L + (long) EVIDENCE_BYTES_PER_LABEL * reportedLabels
+                : 0);
         long usable = maxHeapBytes / 100 * USABLE_PERCENT;
         long bases = usable / (READ_BYTES_PER_BASE + decodeBytesPerBase);
         if (pathInMemory) {
@@ -40,7 +44,7 @@ record MemoryBudget(RecordLengthLimit recordLimit, long basesInFlight) {
     }
 
     /** For the heap this JVM may grow to. */
-    static MemoryBudget ofThisJvm(int states, DecodeMethod method) {
-        return of(Runtime.getRuntime().maxMemory(), states, method);
+    static MemoryBudget ofThisJvm(int states, int reportedLabels, DecodeMethod method) {
+        return of(Runtime.getRuntime().maxMemory(), states, reportedLabels, method);
     }
 }

@@ -168,6 +168,37 @@ class AnnotatorTest {
         return d;
     }
 
+    @Test
+    void pathSegmentsTakeTheirStatisticsFromEnumeratedPosteriors() {
+        // Viterbi and posterior-Viterbi runs are fixed by the path; their confidence is still the label's
+        // posterior over the run's bases, and the record's log-likelihood is ln P(x), both by enumeration here
+        HmmModel model = threeStateModel();
+        var p = dev.annotator.model.ModelCompiler.compile(model);
+        SplittableRandom rng = new SplittableRandom(17);
+        int checked = 0;
+        for (int trial = 0; trial < 120; trial++) {
+            byte[] seq = randomBases(rng, 1 + rng.nextInt(9));
+            double[] enumerated = enumerate(p, seq);
+            double likelihood = enumerated[seq.length];
+            for (DecodeMethod method : new DecodeMethod[]{DecodeMethod.VITERBI, DecodeMethod.POSTERIOR_VITERBI}) {
+                RecordAnnotation a = new Annotator(model, method, 0).annotate(new SequenceRecord("r", "", seq));
+                assertThat(a.logLikelihood()).as(method.name()).isCloseTo(Math.log(likelihood), within(1e-12));
+                for (Segment s : a.segments()) {
+                    double sum = 0;
+                    double min = 1;
+                    for (int t = s.start() - 1; t < s.end(); t++) {
+                        sum += enumerated[t];
+                        min = Math.min(min, enumerated[t]);
+                    }
+                    assertThat(s.meanPosterior()).as(method.name()).isCloseTo(sum / s.length(), within(1e-12));
+                    assertThat(s.minPosterior()).as(method.name()).isCloseTo(min, within(1e-12));
+                    checked++;
+                }
+            }
+        }
+        assertThat(checked).isGreaterThan(50);
+    }
+
     private static byte[] randomBases(SplittableRandom rng, int n) {
         byte[] s = new byte[n];
         for (int i = 0; i < n; i++) {
@@ -178,9 +209,14 @@ class AnnotatorTest {
 
     /** P(label "rich" at t | x) by summing the joint probability of every path (states 0 and 1 are "rich"). */
     private static double[] enumerateLabelPosterior(dev.annotator.hmm.HmmParameters p, byte[] seq) {
+        return java.util.Arrays.copyOf(enumerate(p, seq), seq.length);
+    }
+
+    /** As {@link #enumerateLabelPosterior}, with P(x) (the sum over all paths) appended at index n. */
+    private static double[] enumerate(dev.annotator.hmm.HmmParameters p, byte[] seq) {
         int n = seq.length;
         int k = p.stateCount();
-        double[] rich = new double[n];
+        double[] rich = new double[n + 1];
         double total = 0;
         int[] path = new int[n];
         long count = (long) Math.pow(k, n);
@@ -211,6 +247,7 @@ class AnnotatorTest {
         for (int t = 0; t < n; t++) {
             rich[t] /= total;
         }
+        rich[n] = total;
         return rich;
     }
 }

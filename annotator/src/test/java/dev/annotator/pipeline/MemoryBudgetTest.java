@@ -12,7 +12,7 @@ class MemoryBudgetTest {
 
     @Test
     void posteriorDecodingNeedsFiveBytesPerBaseOfTheUsableHeap() {
-        MemoryBudget b = MemoryBudget.of(1000 * MIB, 2, DecodeMethod.POSTERIOR);
+        MemoryBudget b = MemoryBudget.of(1000 * MIB, 2, 1, DecodeMethod.POSTERIOR);
         // 80% of the heap, over 4 bytes for reading and 1 for the record being decoded
         long expected = 1000 * MIB / 100 * 80 / 5;
         assertThat(b.recordLimit().bases()).isEqualTo(expected);
@@ -22,19 +22,19 @@ class MemoryBudgetTest {
     }
 
     @Test
-    void viterbiAddsABackPointerPerStateAndAPathBytePerBase() {
-        MemoryBudget b = MemoryBudget.of(1000 * MIB, 3, DecodeMethod.VITERBI);
-        // reading 4 + record 1 + back-pointers 3 + path 1 bytes per base
-        assertThat(b.recordLimit().bases()).isEqualTo(1000 * MIB / 100 * 80 / (4 + 1 + 3 + 1));
+    void viterbiAddsABackPointerPerStateAPathByteAndTheEvidenceOfEachLabelPerBase() {
+        MemoryBudget b = MemoryBudget.of(1000 * MIB, 3, 2, DecodeMethod.VITERBI);
+        // reading 4 + record 1 + back-pointers 3 + path 1 + two labels' posterior and ratio (2 doubles each)
+        assertThat(b.recordLimit().bases()).isEqualTo(1000 * MIB / 100 * 80 / (4 + 1 + 3 + 1 + 2 * 16));
     }
 
     @Test
     void neverMoreThanAnArrayHoldsNorLessThanOneBase() {
-        assertThat(MemoryBudget.of(1L << 50, 2, DecodeMethod.POSTERIOR).recordLimit().bases())
+        assertThat(MemoryBudget.of(1L << 50, 2, 1, DecodeMethod.POSTERIOR).recordLimit().bases())
                 .isEqualTo(RecordLengthLimit.ARRAY_MAX);
         // the back-pointer table is bases x states in one array
-        assertThat(MemoryBudget.of(1L << 50, 4, DecodeMethod.VITERBI).recordLimit().bases())
+        assertThat(MemoryBudget.of(1L << 50, 4, 1, DecodeMethod.VITERBI).recordLimit().bases())
                 .isEqualTo(RecordLengthLimit.ARRAY_MAX / 4);
-        assertThat(MemoryBudget.of(1, 2, DecodeMethod.POSTERIOR).recordLimit().bases()).isEqualTo(1);
+        assertThat(MemoryBudget.of(1, 2, 1, DecodeMethod.POSTERIOR).recordLimit().bases()).isEqualTo(1);
     }
 }
