@@ -54,7 +54,6 @@ import java.util.concurrent.Callable;
                 "      part1.fa",
                 "  annotator train -m m0.json --merge-counts p1.counts.json p2.counts.json \\",
                 "      -o m1.json",
-                "  annotator model gene-topology -o start.json",
                 "  annotator train -m start.json --method counting --labels relative.gbk \\",
                 "      -o genes.json relative.gbk",
                 "",

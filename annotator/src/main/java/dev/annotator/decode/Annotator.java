@@ -222,8 +222,23 @@ public final class Annotator {
     private RecordAnnotation annotateByStrand(SequenceRecord record, LongConsumer progress) {
         byte[] bases = record.bases();
         List<Segment> segments = new ArrayList<>();
+        // the two views are independent: in a fork-join pool (more than one thread) they run at once
+        List<RecursiveTask<RecordAnnotation>> views = new ArrayList<>();
         for (Annotator view : strandViews) {
-            segments.addAll(view.annotate(record).segments());
+            views.add(new RecursiveTask<>() {
+                @Override
+                protected RecordAnnotation compute() {
+                    return view.annotate(record);
+                }
+            });
+        }
+        if (ForkJoinTask.inForkJoinPool()) {
+            ForkJoinTask.invokeAll(views);
+        } else {
+            views.forEach(RecursiveTask::invoke);
+        }
+        for (RecursiveTask<RecordAnnotation> view : views) {
+            segments.addAll(view.join().segments());
         }
         List<String> order = labels.labels().stream().map(Label::name).toList();
         segments.sort(Comparator.comparingInt(Segment::start).thenComparingInt(s -> order.indexOf(s.label()))
@@ -241,6 +256,11 @@ public final class Annotator {
         }
         progress.accept(bases.length);
         return new RecordAnnotation(record.name(), bases.length, logLik, segments, recordProfile);
+    }
+
+    /** How many state paths of a record's length one call holds at once (2 for a gene model's strand views). */
+    public int pathsAtOnce() {
+        return strandViews == null ? 1 : strandViews.size();
     }
 
     /** Codon position of the path's state at a gene's 5'-most base; 0 without a path. */

@@ -82,7 +82,7 @@ public final class AnnotationPipeline {
         dev.annotator.io.RawInputObserver observer = tracker == null ? fingerprint
                 : fingerprint == null ? tracker : tracker.andThen(fingerprint);
         MemoryBudget budget = MemoryBudget.ofThisJvm(model.stateCount(), model.reportedLabels().size(),
-                options.method());
+                options.method(), annotator.pathsAtOnce());
         try (SequenceReader reader = SequenceFiles.open(input, stdin, warnings, budget.recordLimit(), observer);
              OrderedParallelMap<SequenceRecord, RecordAnnotation> map = new OrderedParallelMap<>(options.threads(),
                      r -> decode(r, inputName, tracker), sink, SequenceRecord::length, budget.basesInFlight())) {

@@ -28,9 +28,14 @@ record MemoryBudget(RecordLengthLimit recordLimit, long basesInFlight) {
     static final int EVIDENCE_BYTES_PER_LABEL = 16;
 
     static MemoryBudget of(long maxHeapBytes, int states, int reportedLabels, DecodeMethod method) {
+        return of(maxHeapBytes, states, reportedLabels, method, 1);
+    }
+
+    /** @param pathsAtOnce state paths a record's decoding holds at once (two for a gene model's strand views) */
+    static MemoryBudget of(long maxHeapBytes, int states, int reportedLabels, DecodeMethod method, int pathsAtOnce) {
         boolean pathInMemory = method != DecodeMethod.POSTERIOR;
-        long decodeBytesPerBase = 1 + (pathInMemory ? states + 1L + (long) EVIDENCE_BYTES_PER_LABEL * reportedLabels
-                : 0);
+        long decodeBytesPerBase = 1 + (pathInMemory ? pathsAtOnce * (states + 1L
+                + (long) EVIDENCE_BYTES_PER_LABEL * reportedLabels) : 0);
         long usable = maxHeapBytes / 100 * USABLE_PERCENT;
         long bases = usable / (READ_BYTES_PER_BASE + decodeBytesPerBase);
         if (pathInMemory) {
@@ -44,7 +49,7 @@ record MemoryBudget(RecordLengthLimit recordLimit, long basesInFlight) {
     }
 
     /** For the heap this JVM may grow to. */
-    static MemoryBudget ofThisJvm(int states, int reportedLabels, DecodeMethod method) {
-        return of(Runtime.getRuntime().maxMemory(), states, reportedLabels, method);
+    static MemoryBudget ofThisJvm(int states, int reportedLabels, DecodeMethod method, int pathsAtOnce) {
+        return of(Runtime.getRuntime().maxMemory(), states, reportedLabels, method, pathsAtOnce);
     }
 }
