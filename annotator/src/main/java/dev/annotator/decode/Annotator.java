@@ -144,6 +144,7 @@ public final class Annotator {
         List<WindowProfile> windowProfiles = null;
         int k = parameters.stateCount();
         byte[] statePath = null;
+        RecordProfiles.BaseProfile baseProfile = null;
         if (method != DecodeMethod.POSTERIOR) {
             // one forward-backward pass gives the path (posterior-Viterbi), the per-base evidence of the runs and
             // the profile; the runs are known only once the path is read off, so the evidence is kept per base
@@ -179,11 +180,26 @@ public final class Annotator {
             for (int w = 0; w < windows; w++) {
                 tasks.add(new WindowTask(bases, w * window, (int) Math.min(n, (long) (w + 1) * window), progress));
             }
+            // the bases' share of the profile (one pass over the record) runs beside the windows
+            RecursiveTask<RecordProfiles.BaseProfile> fromBases = profile.any() ? new RecursiveTask<>() {
+                @Override
+                protected RecordProfiles.BaseProfile compute() {
+                    return RecordProfiles.bases(profile, bases);
+                }
+            } : null;
             if (windows > 1 && ForkJoinTask.inForkJoinPool()) {
-                ForkJoinTask.invokeAll(tasks);
+                List<ForkJoinTask<?>> all = new ArrayList<>(tasks);
+                if (fromBases != null) {
+                    all.add(fromBases);
+                }
+                ForkJoinTask.invokeAll(all);
             } else {
                 tasks.forEach(WindowTask::invoke);
+                if (fromBases != null) {
+                    fromBases.invoke();
+                }
             }
+            baseProfile = fromBases == null ? null : fromBases.join();
             raw = new ArrayList<>();
             logLik = 0;
             windowProfiles = profile.any() ? new ArrayList<>(windows) : null;
@@ -211,7 +227,8 @@ public final class Annotator {
         List<String> order = labels.labels().stream().map(Label::name).toList();
         segments.sort(Comparator.comparingInt(Segment::start).thenComparingInt(s -> order.indexOf(s.label())));
         RecordProfile recordProfile = windowProfiles == null ? null
-                : RecordProfiles.join(profile, labels, trackLabel, bases, windowProfiles);
+                : baseProfile == null ? RecordProfiles.join(profile, labels, trackLabel, bases, windowProfiles)
+                : RecordProfiles.join(profile, labels, trackLabel, bases, windowProfiles, baseProfile);
         return new RecordAnnotation(record.name(), bases.length, logLik, segments, recordProfile);
     }
 
@@ -296,10 +313,16 @@ public final class Annotator {
             if (Annotator.this.profile.any()) {
                 WindowProfile window = new WindowProfile(labels, trackLabel, Annotator.this.profile, start, end,
                         bases.length, parameters.stateCount());
-                logLikelihood = forwardBackward.runRange(bases, start, end, before, last, (s, e, p, em) -> {
-                    runs.block(s, e, p, em);
-                    window.block(s, e, p, em);
-                });
+                if (window.plotOnly()) {
+                    // the runs compute the label's posterior at every base anyway: they feed the plot as they go
+                    runs.feedPlot(trackLabel, window);
+                    logLikelihood = forwardBackward.runRange(bases, start, end, before, last, runs);
+                } else {
+                    logLikelihood = forwardBackward.runRange(bases, start, end, before, last, (s, e, p, em) -> {
+                        runs.block(s, e, p, em);
+                        window.block(s, e, p, em);
+                    });
+                }
                 window.finish();
                 profile = window;
             } else {

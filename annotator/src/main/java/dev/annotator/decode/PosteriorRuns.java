@@ -18,6 +18,8 @@ final class PosteriorRuns implements PosteriorBlockSink {
     private final SegmentAccumulator[] open;
     private final int[] openEnd;
     private final List<RawSegment> closed = new ArrayList<>();
+    private int plotLabel = -1;
+    private WindowProfile plot;
 
     PosteriorRuns(ReportedLabels labels, int rangeStart, int stateCount) {
         this.labels = labels;
@@ -27,14 +29,24 @@ final class PosteriorRuns implements PosteriorBlockSink {
         this.openEnd = new int[labels.size()];
     }
 
+    /** Also hands every base's posterior of one label to a plot, in the descending order the runs see them. */
+    void feedPlot(int label, WindowProfile plot) {
+        this.plotLabel = label;
+        this.plot = plot;
+    }
+
     @Override
     public void block(int start, int end, double[] posterior, double[] emission) {
         boolean[][] masks = labels.stateMasks();
         for (int r = 0; r < open.length; r++) {
             boolean[] mask = masks[r];
+            WindowProfile plotted = r == plotLabel ? plot : null;
             for (int t = end - 1; t >= start; t--) {
                 int off = (t - start) * stateCount;
                 double p = SegmentAccumulator.labelPosterior(mask, posterior, off);
+                if (plotted != null) {
+                    plotted.plotBase(t, p);
+                }
                 if (p > 0.5) {
                     if (open[r] == null) {
                         open[r] = new SegmentAccumulator(mask);

@@ -42,17 +42,18 @@ final class RecordProfiles {
         return gc;
     }
 
-    static RecordProfile join(ProfileOptions options, ReportedLabels labels, int trackLabel, byte[] bases,
-                              List<WindowProfile> windows) {
+    /** What the bases alone give a record's profile: composition, ambiguous bases, and the plot's GC per bin. */
+    record BaseProfile(Composition composition, long ambiguous, int longestRun, float[] gc) {
+    }
+
+    /**
+     * The part of a profile that needs only the bases, so it can be computed while the record is decoded.
+     */
+    static BaseProfile bases(ProfileOptions options, byte[] bases) {
         int n = bases.length;
-        PosteriorTrack track = null;
-        if (options.track()) {
-            track = TrackPiece.join(windows.stream().map(w -> w.track).toList(), n);
-        }
         Composition composition = null;
         long ambiguous = 0;
         int longestRun = 0;
-        Map<String, Double> logOdds = null;
         boolean plotting = options.plotPoints() > 0 && n > 0;
         int bin = plotting ? PosteriorPlot.binSize(n, options.plotPoints()) : 0;
         int bins = plotting ? (n - 1) / bin + 1 : 0;
@@ -80,6 +81,29 @@ final class RecordProfiles {
                 longestRun = (int) tally.longestAmbiguousRun();
             }
         }
+        return new BaseProfile(composition, ambiguous, longestRun, gc);
+    }
+
+    static RecordProfile join(ProfileOptions options, ReportedLabels labels, int trackLabel, byte[] bases,
+                              List<WindowProfile> windows) {
+        return join(options, labels, trackLabel, bases, windows, bases(options, bases));
+    }
+
+    static RecordProfile join(ProfileOptions options, ReportedLabels labels, int trackLabel, byte[] bases,
+                              List<WindowProfile> windows, BaseProfile fromBases) {
+        int n = bases.length;
+        PosteriorTrack track = null;
+        if (options.track()) {
+            track = TrackPiece.join(windows.stream().map(w -> w.track).toList(), n);
+        }
+        Composition composition = fromBases.composition();
+        long ambiguous = fromBases.ambiguous();
+        int longestRun = fromBases.longestRun();
+        Map<String, Double> logOdds = null;
+        boolean plotting = options.plotPoints() > 0 && n > 0;
+        int bin = plotting ? PosteriorPlot.binSize(n, options.plotPoints()) : 0;
+        int bins = plotting ? (n - 1) / bin + 1 : 0;
+        float[] gc = fromBases.gc();
         if (options.logOdds()) {
             logOdds = new LinkedHashMap<>();
             for (int r = 0; r < labels.size(); r++) {

@@ -159,12 +159,44 @@ final class WindowProfile implements PosteriorBlockSink {
         }
     }
 
+    /** Whether the plot is all this window collects, so a posterior fed base by base is enough. */
+    boolean plotOnly() {
+        return max != null && track == null && product == null;
+    }
+
+    // the bin being fed by plotBase (positions descend), kept in fields between calls
+    private int fedBin = -1;
+    private int fedBinStart;
+    private double fedMax;
+    private double fedSum;
+
+    /** One base's posterior of the plotted label; bases come in descending order, as the backward pass gives them. */
+    void plotBase(int t, double p) {
+        if (t < fedBinStart || fedBin < 0) {
+            flushFed();
+            fedBin = t / plotBin;
+            fedBinStart = fedBin * plotBin;
+            fedMax = max[fedBin - firstBin];
+            fedSum = sum[fedBin - firstBin];
+        }
+        fedMax = Math.max(fedMax, p);
+        fedSum += p;
+    }
+
+    private void flushFed() {
+        if (fedBin >= 0) {
+            max[fedBin - firstBin] = (float) fedMax;
+            sum[fedBin - firstBin] = fedSum;
+        }
+    }
+
     /** Natural log of the product of this window's ratios for reported label {@code r}. */
     double logRatio(int r) {
         return Math.log(product[r]) + exponent[r] * Math.log(2);
     }
 
     void finish() {
+        flushFed();
         if (track != null) {
             track.finish();
         }

@@ -105,6 +105,9 @@ public final class AnnotationPipeline {
             if (tracker != null) {
                 tracker.close();
             }
+            if (fingerprint != null) {
+                fingerprint.close(); // waits for the digest; finish() below then only reads it
+            }
         }
         return new RunSummary(counts[0], bases[0], counts[1], (System.nanoTime() - started) / 1e9,
                 fingerprint == null ? null : fingerprint.finish(inputName));
