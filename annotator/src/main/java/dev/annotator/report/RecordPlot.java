@@ -4,7 +4,6 @@ import dev.annotator.decode.PosteriorPlot;
 import dev.annotator.decode.Segment;
 
 import java.io.IOException;
-import java.util.Locale;
 
 /**
  * One record's plot: the label posterior (bin maximum, so a short confident stretch stays visible, and bin mean)
@@ -108,12 +107,13 @@ final class RecordPlot {
     }
 
     /**
-     * One decimal, as {@code String.format(Locale.ROOT, "%.1f", v)} writes it (the shortest decimal form of the
-     * double rounded half up) for the finite, non-negative coordinates of a plot, without the formatter: a plot has
-     * thousands of coordinates, and the formatter's cost on a cold start was most of the report's.
+     * A plot coordinate with one decimal, rounded half up. Written by hand rather than with the formatter: a plot has
+     * thousands of coordinates, and formatting them was most of the report's cost on a cold start.
      */
     static String num(double v) {
-        return new java.math.BigDecimal(Double.toString(v)).setScale(1, java.math.RoundingMode.HALF_UP).toPlainString();
+        long tenths = Math.round(v * 10);
+        long whole = Math.abs(tenths) / 10;
+        return (tenths < 0 ? "-" : "") + whole + "." + Math.abs(tenths) % 10;
     }
 
     static String str(int v) {
