@@ -238,8 +238,8 @@ public final class Annotator {
      */
     private RecordAnnotation annotateByStrand(SequenceRecord record, LongConsumer progress) {
         byte[] bases = record.bases();
-        List<Segment> segments = new ArrayList<>();
-        // the two views are independent: in a fork-join pool (more than one thread) they run at once
+        // the two views and the model's own pass (log-likelihood, profile) are independent: in a fork-join pool
+        // (more than one thread) they run at once
         List<RecursiveTask<RecordAnnotation>> views = new ArrayList<>();
         for (Annotator view : strandViews) {
             views.add(new RecursiveTask<>() {
@@ -249,30 +249,46 @@ public final class Annotator {
                 }
             });
         }
+        RecursiveTask<RecordAnnotation> whole = new RecursiveTask<>() {
+            @Override
+            protected RecordAnnotation compute() {
+                return wholeModelPass(record);
+            }
+        };
+        List<ForkJoinTask<RecordAnnotation>> all = new ArrayList<>(views);
+        all.add(whole);
         if (ForkJoinTask.inForkJoinPool()) {
-            ForkJoinTask.invokeAll(views);
+            ForkJoinTask.invokeAll(all);
         } else {
-            views.forEach(RecursiveTask::invoke);
+            all.forEach(ForkJoinTask::invoke);
         }
+        List<Segment> segments = new ArrayList<>();
         for (RecursiveTask<RecordAnnotation> view : views) {
             segments.addAll(view.join().segments());
         }
         List<String> order = labels.labels().stream().map(Label::name).toList();
         segments.sort(Comparator.comparingInt(Segment::start).thenComparingInt(s -> order.indexOf(s.label()))
                 .thenComparingInt(Segment::end));
+        RecordAnnotation model = whole.join();
+        progress.accept(bases.length);
+        return new RecordAnnotation(record.name(), bases.length, model.logLikelihood(), segments, model.profile());
+    }
+
+    /** The whole model's log-likelihood of a record, and its profile when one is asked for; no segments. */
+    private RecordAnnotation wholeModelPass(SequenceRecord record) {
+        byte[] bases = record.bases();
         double logLik;
         RecordProfile recordProfile = null;
         if (profile.any()) {
-            WindowProfile whole = new WindowProfile(labels, trackLabel, profile, 0, bases.length, bases.length,
+            WindowProfile window = new WindowProfile(labels, trackLabel, profile, 0, bases.length, bases.length,
                     parameters.stateCount());
-            logLik = forwardBackward.run(bases, whole);
-            whole.finish();
-            recordProfile = RecordProfiles.join(profile, labels, trackLabel, bases, List.of(whole));
+            logLik = forwardBackward.run(bases, window);
+            window.finish();
+            recordProfile = RecordProfiles.join(profile, labels, trackLabel, bases, List.of(window));
         } else {
             logLik = forwardBackward.logLikelihood(bases);
         }
-        progress.accept(bases.length);
-        return new RecordAnnotation(record.name(), bases.length, logLik, segments, recordProfile);
+        return new RecordAnnotation(record.name(), bases.length, logLik, List.of(), recordProfile);
     }
 
     /** How many state paths of a record's length one call holds at once (2 for a gene model's strand views). */
