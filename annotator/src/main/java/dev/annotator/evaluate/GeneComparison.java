@@ -17,7 +17,7 @@ import java.util.Set;
  *
  * <p>Records are those the reference declares or has features on, then those only the predictions have features
  * on. A record's length is the reference's, else the predictions', else its furthest feature end. Features are
- * taken once per distinct position and strand, so a CDS part listed under several transcripts counts once; the
+ * taken once per distinct position and strand, so a CDS part listed under several mRNAs counts once; the
  * parts of a spliced CDS stay separate features.
  */
 public final class GeneComparison {

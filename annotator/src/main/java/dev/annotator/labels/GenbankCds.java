@@ -22,7 +22,7 @@ import java.util.Map;
  *
  * @param recordLengths bases per record, by seqid in file order (seqids as {@link GenbankRecordReader} names them)
  * @param simple        single-interval CDS in file order
- * @param multiPart     each multi-part CDS as its intervals in transcript order (5' to 3'), in file order
+ * @param multiPart     each multi-part CDS as its intervals in reading order (5' to 3'), in file order
  * @param partial       CDS left out for a partial end
  * @param other         CDS left out for a part that is no interval of the record
  */

@@ -5,7 +5,7 @@ import java.util.List;
 
 /**
  * A feature location in the INSDC feature table syntax (the DDBJ/ENA/GenBank Feature Table Definition, section
- * 3.4), read into the intervals it covers in transcript order (5' to 3'): {@code complement(join(a..b,c..d))}
+ * 3.4), read into the intervals it covers in reading order (5' to 3'): {@code complement(join(a..b,c..d))}
  * is c..d then a..b on the minus strand.
  *
  * <p>Understood: {@code a..b}, {@code complement(...)}, {@code join(...)}, {@code order(...)}, and the partial
@@ -14,7 +14,7 @@ import java.util.List;
  * {@code (a.b)} or {@code a.b}, and a reference into another entry {@code ACC.1:a..b}. Anything else is
  * {@link Malformed}.
  *
- * @param parts      the intervals in transcript order; for unmodelled locations only the ones that are intervals
+ * @param parts      the intervals in reading order; for unmodelled locations only the ones that are intervals
  * @param partial    a {@code <} or {@code >} mark: the feature continues beyond the stated bounds
  * @param multiPart  join or order of more than one part
  * @param unmodelled some part is no plain interval on this record (see above)

@@ -169,7 +169,7 @@ class GeneComparisonTest {
                 .hasMessage("pred.gff3: record a: length 21 differs from length 20 in ref.gff3");
     }
 
-    /** A CDS part listed under two transcripts is one feature; the parts of a spliced CDS stay apart. */
+    /** A CDS part listed under two mRNAs is one feature; the parts of a spliced CDS stay apart. */
     @Test
     void repeatedPartsCountOnceAndSplicedPartsSeparately() {
         List<StrandedFeature> truth = List.of(f('+', 1, 10), f('+', 1, 10), f('+', 21, 30));

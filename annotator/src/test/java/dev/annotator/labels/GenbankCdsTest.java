@@ -62,7 +62,7 @@ class GenbankCdsTest {
         assertThat(cds.joined()).isEqualTo(1);
         assertThat(cds.other()).isZero();
         // complement(join(535378..536418,536417..536485)), marked /exception="natural UGA frame-shift" in the file:
-        // on the minus strand the transcript reads 536485 down to 536417 first, then 536418 down to 535378
+        // on the minus strand the mRNA reads 536485 down to 536417 first, then 536418 down to 535378
         assertThat(cds.multiPart().get(0)).containsExactly(
                 new StrandedFeature("CG0037", 536_417, 536_485, '-'),
                 new StrandedFeature("CG0037", 535_378, 536_418, '-'));
@@ -150,7 +150,7 @@ class GenbankCdsTest {
      * Every simple CDS is whole codons, from a start to a stop codon of table 11 on its own strand (reverse
      * complement by htsjdk's SequenceUtil for the minus strand). Found: ct.gbk 892 of 892 and pPCP1 10 of 10 with no
      * exception; the chloroplast 70 with one: ndhD starts with ACG, which the file marks /exception="RNA editing"
-     * (the ACG is edited to AUG in the transcript).
+     * (the ACG is edited to AUG in the mRNA).
      */
     @ParameterizedTest
     @FieldSource("dev.annotator.seq.PublishedGenbankRecords#ALL")

@@ -43,7 +43,7 @@ class InsdcLocationTest {
 
     /** Both spellings of the same spliced minus-strand feature give the same parts, 5' to 3'. */
     @Test
-    void joinsInTranscriptOrder() {
+    void joinsInReadingOrder() {
         List<StrandedFeature> expected = List.of(f(4918, 5163, '-'), f(2691, 4571, '-'));
         InsdcLocation a = parse("complement(join(2691..4571,4918..5163))");
         InsdcLocation b = parse("join(complement(4918..5163),complement(2691..4571))");
