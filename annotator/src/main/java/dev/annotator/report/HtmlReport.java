@@ -27,8 +27,11 @@ import java.util.Locale;
 public final class HtmlReport {
     /** Records drawn; later records appear in the table only. */
     public static final int PLOTTED = 50;
-    /** Bins per plotted record. */
-    public static final int PLOT_POINTS = 2000;
+    /**
+     * Bins per plotted record: about one per unit of the plot's 880-unit width (each bin keeps its maximum, so a
+     * segment shorter than a bin still shows); more would only lengthen the file and its drawing.
+     */
+    public static final int PLOT_POINTS = 1000;
     /** A segment below this confidence flags its record (common practice: a posterior near 0.5 is a coin toss). */
     static final double LOW_CONFIDENCE = 0.7;
     /** An N run at least this long flags its record (the size of a typical assembly gap, common practice). */
