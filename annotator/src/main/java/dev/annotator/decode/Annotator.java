@@ -214,10 +214,10 @@ public final class Annotator {
         }
         List<Segment> segments = new ArrayList<>(raw.size());
         for (RawSegment r : raw) {
-            if (r.length() < minLength) {
+            Label label = labels.labels().get(r.label());
+            if (r.length() < Math.max(minLength, label.minLength())) {
                 continue;
             }
-            Label label = labels.labels().get(r.label());
             Composition composition = label.composition()
                     ? CompositionCounter.of(bases, r.start0(), r.endExclusive()) : null;
             GeneDetails gene = label.stranded() ? GeneDetails.of(label.strand(), bases, r.start0(), r.endExclusive(),

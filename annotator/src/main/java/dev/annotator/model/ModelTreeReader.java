@@ -24,7 +24,7 @@ final class ModelTreeReader {
             "bases", "iterations");
     private static final List<String> FINGERPRINT = List.of("name", "bytes", "sha256");
     private static final List<String> LABEL = List.of("name", "feature_type", "so_accession", "background",
-            "composition", "strand");
+            "composition", "strand", "min_length");
     private static final List<String> STATE = List.of("name", "label", "order", "emissions", "codon_position");
     private static final List<String> STATE_REQUIRED = List.of("name", "label", "order", "emissions");
     private static final List<String> TRANSITION = List.of("from", "to", "p");
@@ -135,7 +135,7 @@ final class ModelTreeReader {
         }
         return new Label(text(node, "name", path), optionalText(node, "feature_type", path),
                 optionalText(node, "so_accession", path), flag(node, "background", path),
-                flag(node, "composition", path), strand == null ? '.' : strand.charAt(0));
+                flag(node, "composition", path), strand == null ? '.' : strand.charAt(0), minLength(node, path));
     }
 
     private State state(JsonNode node, String path) {
@@ -190,6 +190,21 @@ final class ModelTreeReader {
             }
         }
         return new State(name, label, order, table, codonPosition(node, path, where));
+    }
+
+    private int minLength(JsonNode node, String path) {
+        JsonNode n = node.get("min_length");
+        if (n == null) {
+            return 0;
+        }
+        if (!n.isIntegralNumber()) {
+            throw wrongType(path + ".min_length", "an integer", n);
+        }
+        if (!n.canConvertToInt() || n.intValue() < 0) {
+            throw fail("label " + ModelValidator.quote(text(node, "name", path)) + ": min_length " + n
+                    + " is not a length in bases (0 or more)");
+        }
+        return n.intValue();
     }
 
     private int codonPosition(JsonNode node, String path, String where) {

@@ -64,6 +64,9 @@ final class ModelTreeWriter {
             if (l.stranded()) {
                 n.put("strand", String.valueOf(l.strand()));
             }
+            if (l.minLength() > 0) {
+                n.put("min_length", l.minLength());
+            }
         }
 
         ArrayNode states = root.putArray("states");

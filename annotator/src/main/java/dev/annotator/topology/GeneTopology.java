@@ -34,6 +34,11 @@ public final class GeneTopology {
     public static final String NONCODING = "noncoding";
     public static final String FORWARD_LABEL = "cds_forward";
     public static final String REVERSE_LABEL = "cds_reverse";
+    /**
+     * Genes shorter than this are not reported: 30 codons, start and stop included (common practice; a path
+     * through a start codon, a few codons and a stop is allowed by the topology but is no gene worth a call).
+     */
+    public static final int MIN_GENE_LENGTH = 90;
     /** Default length of the modelled stretch before a start codon. */
     public static final int DEFAULT_UPSTREAM = 12;
     public static final int MAX_UPSTREAM = 60;
@@ -134,8 +139,8 @@ public final class GeneTopology {
         }
 
         List<Label> labels = List.of(
-                new Label(FORWARD_LABEL, "CDS", "SO:0000316", false, false, '+'),
-                new Label(REVERSE_LABEL, "CDS", "SO:0000316", false, false, '-'),
+                new Label(FORWARD_LABEL, "CDS", "SO:0000316", false, false, '+', MIN_GENE_LENGTH),
+                new Label(REVERSE_LABEL, "CDS", "SO:0000316", false, false, '-', MIN_GENE_LENGTH),
                 new Label(NONCODING, null, null, true, false));
         Provenance provenance = new Provenance("Untrained protein-coding gene topology for " + code.name()
                 + " (starts " + String.join(", ", starts) + "; stops " + String.join(", ", stops) + ")",
