@@ -78,11 +78,12 @@ final class AnnotateCommand implements Callable<Integer> {
                     + "posterior.")
     DecodeMethod decode;
 
-    @Option(names = "--gene-starts", paramLabel = "RULE", defaultValue = "longest-orf",
+    @Option(names = "--gene-starts", paramLabel = "RULE", defaultValue = "likeliest-start",
             converter = GeneStartsConverter.class,
-            description = "Gene models: longest-orf (default) moves each gene's start to the first start codon of its "
-                    + "open reading frame, common practice where start signals are weak; decoded keeps the start "
-                    + "the decoded path gives.")
+            description = "Gene models: where a gene starts within its open reading frame. likeliest-start (default): "
+                    + "the 5'-most of the likeliest start codons (by the model's start-codon frequencies) between "
+                    + "the frame's first start codon and the decoded start; longest-orf: the frame's first start "
+                    + "codon; decoded: the start the decoded path gives.")
     GeneStarts geneStarts;
 
     @Option(names = "--min-length", paramLabel = "BP", defaultValue = "0",

@@ -11,9 +11,11 @@ final class GeneStartsConverter implements ITypeConverter<GeneStarts> {
     @Override
     public GeneStarts convert(String value) {
         return switch (value.toLowerCase(Locale.ROOT)) {
+            case "likeliest-start" -> GeneStarts.LIKELIEST_START;
             case "longest-orf" -> GeneStarts.LONGEST_ORF;
             case "decoded" -> GeneStarts.DECODED;
-            default -> throw new TypeConversionException("expected longest-orf or decoded, got '" + value + "'");
+            default -> throw new TypeConversionException("expected likeliest-start, longest-orf or decoded, got '"
+                    + value + "'");
         };
     }
 }

@@ -63,7 +63,7 @@ public final class Annotator {
      * @throws IllegalArgumentException when the profile's track label is not a reported label of the model
      */
     public Annotator(HmmModel model, DecodeMethod method, int minLength, int window, ProfileOptions profile) {
-        this(model, method, minLength, window, profile, GeneStarts.LONGEST_ORF);
+        this(model, method, minLength, window, profile, GeneStarts.LIKELIEST_START);
     }
 
     /**
@@ -89,7 +89,7 @@ public final class Annotator {
                 new Annotator(StrandView.of(model, '+'), method, minLength, window, ProfileOptions.NONE, starts),
                 new Annotator(StrandView.of(model, '-'), method, minLength, window, ProfileOptions.NONE, starts))
                 : null;
-        this.longestOrfStarts = starts == GeneStarts.LONGEST_ORF ? LongestOrfStarts.of(model, parameters) : null;
+        this.longestOrfStarts = starts == GeneStarts.DECODED ? null : LongestOrfStarts.of(model, parameters, starts);
         this.stateToReported = new int[model.stateCount()];
         for (int s = 0; s < stateToReported.length; s++) {
             stateToReported[s] = -1;

@@ -13,11 +13,13 @@ import java.util.List;
 import java.util.Map;
 
 /**
- * Moves the start of every decoded gene to the 5'-most start codon of its open reading frame: the first start
- * codon after the previous in-frame stop. Between candidate starts of one reading frame a gene model's evidence is
- * often flat (codon statistics of the first codons hardly differ from non-coding sequence), and choosing the
- * longest open reading frame then is common practice in prokaryotic annotation. Confidence and log-odds are then
- * taken over the whole gene as written.
+ * Moves the start of every decoded gene upstream within its open reading frame. Between candidate starts of one
+ * reading frame a gene model's evidence is often flat (codon statistics of the first codons hardly differ from
+ * non-coding sequence), and the decoded start tends to lie too far downstream. Two rules ({@link GeneStarts}):
+ * the longest open reading frame (the first start codon after the previous in-frame stop, common practice in
+ * prokaryotic annotation), or the 5'-most of the likeliest start codons between there and the decoded start, by
+ * the model's own start-codon frequencies (so an ATG is preferred to a GTG or TTG further upstream). Confidence and
+ * log-odds are then taken over the whole gene as written.
  *
  * <p>The gene's structure is read from the model, not from state names: the start-codon states are the three
  * states at the gene's 5' end (entered from outside its label on the forward strand, left to outside it on the
@@ -29,14 +31,16 @@ final class LongestOrfStarts {
     private static final byte[] CODE = BaseCode.table();
 
     private final HmmParameters p;
+    private final boolean byKind;
     private final List<Gene> genes = new ArrayList<>();
 
     /** The states of one stranded label, in reading order of the forward strand. */
     private record Gene(int label, char strand, int[] startChain, int[] codons) {
     }
 
-    private LongestOrfStarts(HmmModel model, HmmParameters parameters) {
+    private LongestOrfStarts(HmmModel model, HmmParameters parameters, GeneStarts rule) {
         this.p = parameters;
+        this.byKind = rule == GeneStarts.LIKELIEST_START;
         int[] stateLabel = model.stateLabels();
         Map<Integer, List<Integer>> succ = new HashMap<>();
         Map<Integer, List<Integer>> pred = new HashMap<>();
@@ -63,8 +67,8 @@ final class LongestOrfStarts {
     }
 
     /** The rewriter for a model, or null when no stranded label has the start-and-codon structure. */
-    static LongestOrfStarts of(HmmModel model, HmmParameters parameters) {
-        LongestOrfStarts s = new LongestOrfStarts(model, parameters);
+    static LongestOrfStarts of(HmmModel model, HmmParameters parameters, GeneStarts rule) {
+        LongestOrfStarts s = new LongestOrfStarts(model, parameters, rule);
         return s.genes.isEmpty() ? null : s;
     }
 
@@ -170,15 +174,24 @@ final class LongestOrfStarts {
         return out;
     }
 
-    /** The first start codon of the forward frame ending in the codon at {@code from}, walking upstream. */
+    /**
+     * The chosen start codon of the forward frame whose decoded start codon is at {@code from}, walking upstream to
+     * the previous in-frame stop: the 5'-most one, or with {@link GeneStarts#LIKELIEST_START} the 5'-most of those
+     * whose kind the model finds likeliest.
+     */
     private int forwardStart(Gene g, byte[] seq, int from) {
         int best = from;
+        double bestP = startCodonProbability(g.startChain, seq, from);
         for (int q = from - 3; q >= 0; q -= 3) {
             if (!emits(g.codons, seq, q)) {
                 break; // an in-frame stop or a missing base closes the frame
             }
             if (emits(g.startChain, seq, q)) {
-                best = q;
+                double p = startCodonProbability(g.startChain, seq, q);
+                if (p >= bestP) {
+                    best = q;
+                    bestP = p;
+                }
             }
         }
         return best;
@@ -187,15 +200,40 @@ final class LongestOrfStarts {
     /** As {@link #forwardStart} on the reverse strand: walks right from the start codon ending at {@code to}. */
     private int reverseStart(Gene g, byte[] seq, int to) {
         int best = to;
+        double bestP = startCodonProbability(g.startChain, seq, to - 3);
         for (int r = to; r + 3 <= seq.length; r += 3) {
             if (!emits(g.codons, seq, r)) {
                 break;
             }
             if (emits(g.startChain, seq, r)) {
-                best = r + 3;
+                double p = startCodonProbability(g.startChain, seq, r);
+                if (p >= bestP) {
+                    best = r + 3;
+                    bestP = p;
+                }
             }
         }
         return best;
+    }
+
+    /**
+     * How likely the start-codon states find the triplet at q on its own, without the bases before it (each state
+     * conditioned only on the triplet's earlier bases): the trained frequency of that kind of start codon. 1 for
+     * every triplet under {@link GeneStarts#LONGEST_ORF}, which then takes the 5'-most.
+     */
+    private double startCodonProbability(int[] states, byte[] seq, int q) {
+        if (!byKind) {
+            return 1;
+        }
+        double prob = 1;
+        int context = 0;
+        for (int i = 0; i < 3; i++) {
+            int b = CODE[seq[q + i] & 0xFF];
+            prob *= p.emission(states[i], Math.min(i, p.order(states[i])), context & ((1 << (2 * Math.min(i,
+                    p.order(states[i])))) - 1), b);
+            context = context * 4 + b;
+        }
+        return prob;
     }
 
     /** Whether three states can emit the triplet at q (with the record's own preceding bases as context). */

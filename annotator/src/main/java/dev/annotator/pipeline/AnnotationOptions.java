@@ -18,7 +18,7 @@ public record AnnotationOptions(DecodeMethod method, int minLength, int threads,
                                 ProfileOptions profile, GeneStarts starts) {
     public AnnotationOptions(DecodeMethod method, int minLength, int threads, String idPrefix,
                              ProfileOptions profile) {
-        this(method, minLength, threads, idPrefix, profile, GeneStarts.LONGEST_ORF);
+        this(method, minLength, threads, idPrefix, profile, GeneStarts.LIKELIEST_START);
     }
 
     public AnnotationOptions(DecodeMethod method, int minLength, int threads) {
