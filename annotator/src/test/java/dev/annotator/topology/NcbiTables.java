@@ -3,7 +3,6 @@ package dev.annotator.topology;
 import org.biojava.nbio.core.sequence.compound.AminoAcidCompoundSet;
 import org.biojava.nbio.core.sequence.compound.DNACompoundSet;
 import org.biojava.nbio.core.sequence.io.IUPACParser;
-import org.biojava.nbio.core.sequence.transcription.Table;
 
 import java.util.Locale;
 import java.util.Map;
@@ -23,9 +22,9 @@ public final class NcbiTables {
     /** Every codon (DNA, upper case) of NCBI table {@code id} with its one-letter amino acid, '*' for a stop. */
     public static Map<String, Character> translation(int id) {
         // a fresh parser: BioJava's tables cache the codons of the first compound set they are asked with
-        Table table = new IUPACParser().getTable(id);
+        var table = new IUPACParser().getTable(id);
         Map<String, Character> out = new TreeMap<>();
-        for (Table.Codon c : table.getCodons(DNACompoundSet.getDNACompoundSet(),
+        for (var c : table.getCodons(DNACompoundSet.getDNACompoundSet(),
                 AminoAcidCompoundSet.getAminoAcidCompoundSet())) {
             out.put(c.toString().toUpperCase(Locale.ROOT), c.getAminoAcid().toString().charAt(0));
         }
@@ -45,9 +44,9 @@ public final class NcbiTables {
 
     /** The codons NCBI table {@code id} marks as possible initiators ("Starts" row, M). */
     public static Set<String> starts(int id) {
-        Table table = new IUPACParser().getTable(id);
+        var table = new IUPACParser().getTable(id);
         Set<String> out = new TreeSet<>();
-        for (Table.Codon c : table.getCodons(DNACompoundSet.getDNACompoundSet(),
+        for (var c : table.getCodons(DNACompoundSet.getDNACompoundSet(),
                 AminoAcidCompoundSet.getAminoAcidCompoundSet())) {
             if (c.isStart()) {
                 out.add(c.toString().toUpperCase(Locale.ROOT));
