@@ -75,16 +75,7 @@ final class LongestOrfStarts {
     /** Forward strand: entry state, then two single successors make the start codon; three codon states follow. */
     private static Gene forward(HmmModel m, int l, int[] lab, Map<Integer, List<Integer>> succ,
                                 Map<Integer, List<Integer>> pred) {
-        int entry = -1;
-        for (int s = 0; s < lab.length; s++) {
-            if (lab[s] == l && pred.getOrDefault(s, List.of()).stream().anyMatch(q -> lab[q] != l)) {
-                if (entry >= 0) {
-                    return null;
-                }
-                entry = s;
-            }
-        }
-        int[] chain = follow(entry, succ, 6);
+        int[] chain = follow(boundary(lab, l, pred), succ, 6);
         return chain == null || !inLabel(chain, lab, l) || !positions(m, chain, 1, 2, 3, 1, 2, 3) ? null
                 : new Gene(l, '+', new int[]{chain[0], chain[1], chain[2]}, new int[]{chain[3], chain[4], chain[5]});
     }
@@ -92,16 +83,7 @@ final class LongestOrfStarts {
     /** Reverse strand: exit state, then two single predecessors make the start codon; three codon states precede. */
     private static Gene reverse(HmmModel m, int l, int[] lab, Map<Integer, List<Integer>> succ,
                                 Map<Integer, List<Integer>> pred) {
-        int exit = -1;
-        for (int s = 0; s < lab.length; s++) {
-            if (lab[s] == l && succ.getOrDefault(s, List.of()).stream().anyMatch(q -> lab[q] != l)) {
-                if (exit >= 0) {
-                    return null;
-                }
-                exit = s;
-            }
-        }
-        int[] back = follow(exit, pred, 6);
+        int[] back = follow(boundary(lab, l, succ), pred, 6);
         if (back == null || !inLabel(back, lab, l)) {
             return null;
         }
@@ -109,6 +91,23 @@ final class LongestOrfStarts {
         int[] chain = {back[5], back[4], back[3], back[2], back[1], back[0]};
         return !positions(m, chain, 3, 2, 1, 3, 2, 1) ? null
                 : new Gene(l, '-', new int[]{chain[3], chain[4], chain[5]}, new int[]{chain[0], chain[1], chain[2]});
+    }
+
+    /**
+     * The one state of label l with a neighbour (in {@code neighbours}: predecessors for the way in, successors for
+     * the way out) outside the label; -1 when there is none or more than one.
+     */
+    private static int boundary(int[] lab, int l, Map<Integer, List<Integer>> neighbours) {
+        int found = -1;
+        for (int s = 0; s < lab.length; s++) {
+            if (lab[s] == l && neighbours.getOrDefault(s, List.of()).stream().anyMatch(q -> lab[q] != l)) {
+                if (found >= 0) {
+                    return -1;
+                }
+                found = s;
+            }
+        }
+        return found;
     }
 
     private static int[] follow(int from, Map<Integer, List<Integer>> next, int length) {

@@ -10,6 +10,7 @@ import dev.annotator.evaluate.GeneComparison;
 import dev.annotator.labels.StrandedFeature;
 import dev.annotator.model.HmmModel;
 import dev.annotator.pipeline.TrainingPipeline;
+import dev.annotator.seq.FastaWriter;
 import dev.annotator.seq.SequenceRecord;
 import dev.annotator.train.Freeze;
 import dev.annotator.train.RunStamp;
@@ -67,12 +68,8 @@ final class GeneExperiment {
 
     static Path writeFasta(Path dir, Stretch s) {
         Path p = dir.resolve(s.seqid() + "-" + s.sequence().length() + ".fa");
-        try (Writer w = Files.newBufferedWriter(p, StandardCharsets.US_ASCII)) {
-            w.write(">" + s.seqid() + "\n");
-            for (int i = 0; i < s.sequence().length(); i += 80) {
-                w.write(s.sequence(), i, Math.min(80, s.sequence().length() - i));
-                w.write('\n');
-            }
+        try (FastaWriter w = new FastaWriter(Files.newOutputStream(p), true)) {
+            w.write(new SequenceRecord(s.seqid(), "", s.sequence().getBytes(StandardCharsets.US_ASCII)));
         } catch (IOException e) {
             throw new UncheckedIOException(e);
         }
