@@ -234,7 +234,9 @@ public final class Annotator {
 
     /**
      * A gene model decoded strand by strand ({@link StrandView}): genes of each strand from its own view, merged in
-     * order; the log-likelihood (and the profile, when asked for) from the model itself.
+     * order; the profile, when asked for, from the model itself, which gives the log-likelihood too. Without a
+     * profile the record's log-likelihood is NaN: the whole model's forward pass would cost about a seventh of the
+     * decoding for a number no output reads ({@link #logLikelihood(byte[])} computes it).
      */
     private RecordAnnotation annotateByStrand(SequenceRecord record, LongConsumer progress) {
         byte[] bases = record.bases();
@@ -249,14 +251,16 @@ public final class Annotator {
                 }
             });
         }
-        RecursiveTask<RecordAnnotation> whole = new RecursiveTask<>() {
+        RecursiveTask<RecordAnnotation> whole = profile.any() ? new RecursiveTask<>() {
             @Override
             protected RecordAnnotation compute() {
                 return wholeModelPass(record);
             }
-        };
+        } : null;
         List<ForkJoinTask<RecordAnnotation>> all = new ArrayList<>(views);
-        all.add(whole);
+        if (whole != null) {
+            all.add(whole);
+        }
         if (ForkJoinTask.inForkJoinPool()) {
             ForkJoinTask.invokeAll(all);
         } else {
@@ -269,26 +273,33 @@ public final class Annotator {
         List<String> order = labels.labels().stream().map(Label::name).toList();
         segments.sort(Comparator.comparingInt(Segment::start).thenComparingInt(s -> order.indexOf(s.label()))
                 .thenComparingInt(Segment::end));
-        RecordAnnotation model = whole.join();
         progress.accept(bases.length);
+        if (whole == null) {
+            return new RecordAnnotation(record.name(), bases.length, Double.NaN, segments, null);
+        }
+        RecordAnnotation model = whole.join();
         return new RecordAnnotation(record.name(), bases.length, model.logLikelihood(), segments, model.profile());
     }
 
-    /** The whole model's log-likelihood of a record, and its profile when one is asked for; no segments. */
+    /** The whole model's profile of a record, with its log-likelihood; no segments. */
     private RecordAnnotation wholeModelPass(SequenceRecord record) {
         byte[] bases = record.bases();
-        double logLik;
-        RecordProfile recordProfile = null;
-        if (profile.any()) {
-            WindowProfile window = new WindowProfile(labels, trackLabel, profile, 0, bases.length, bases.length,
-                    parameters.stateCount());
-            logLik = forwardBackward.run(bases, window);
-            window.finish();
-            recordProfile = RecordProfiles.join(profile, labels, trackLabel, bases, List.of(window));
-        } else {
-            logLik = forwardBackward.logLikelihood(bases);
-        }
+        WindowProfile window = new WindowProfile(labels, trackLabel, profile, 0, bases.length, bases.length,
+                parameters.stateCount());
+        double logLik = forwardBackward.run(bases, window);
+        window.finish();
+        RecordProfile recordProfile = RecordProfiles.join(profile, labels, trackLabel, bases, List.of(window));
         return new RecordAnnotation(record.name(), bases.length, logLik, List.of(), recordProfile);
+    }
+
+    /**
+     * Natural log of P(bases | model) by a forward pass of the whole model: the figure a strand-by-strand gene
+     * decoding without a profile leaves out of its {@link RecordAnnotation}.
+     *
+     * @throws dev.annotator.hmm.ImpossibleSequenceException if no state path of the model can emit the bases
+     */
+    public double logLikelihood(byte[] bases) {
+        return forwardBackward.logLikelihood(bases);
     }
 
     /** How many state paths of a record's length one call holds at once (2 for a gene model's strand views). */

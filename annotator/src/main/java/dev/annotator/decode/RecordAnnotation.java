@@ -7,7 +7,8 @@ import java.util.List;
  *
  * @param seqid         the record's name
  * @param length        its length in bases
- * @param logLikelihood natural log of P(sequence | model)
+ * @param logLikelihood natural log of P(sequence | model); NaN for a gene model decoded strand by strand without a
+ *                      profile ({@link Annotator#logLikelihood(byte[])} computes it)
  * @param segments      called segments of all reported labels, ordered by start (then by label order)
  * @param profile       the per-record products asked for with {@link ProfileOptions}; null when none were
  */
