@@ -70,8 +70,15 @@ public final class FastaRecordReader implements SequenceReader {
     /** As above, also showing the raw input bytes read to {@code rawBytes} (may be null), for progress and checksums. */
     public static FastaRecordReader open(String pathOrDash, InputStream stdin, Consumer<String> warnings,
                                          RecordLengthLimit limit, dev.annotator.io.RawInputObserver rawBytes) {
+        return open(pathOrDash, stdin, warnings, limit, rawBytes, false);
+    }
+
+    /** As above; with {@code inflateAhead}, gzip input is inflated on a thread of its own (see InputOpener). */
+    public static FastaRecordReader open(String pathOrDash, InputStream stdin, Consumer<String> warnings,
+                                         RecordLengthLimit limit, dev.annotator.io.RawInputObserver rawBytes,
+                                         boolean inflateAhead) {
         String name = InputOpener.displayName(pathOrDash);
-        InputStream in = InputOpener.open(pathOrDash, stdin, rawBytes);
+        InputStream in = InputOpener.open(pathOrDash, stdin, rawBytes, inflateAhead);
         return new FastaRecordReader(name, new FastaLineScanner(in, name, limit), warnings);
     }
 

@@ -60,8 +60,14 @@ public final class GenbankRecordReader implements SequenceReader {
     /** As above, also showing the raw input bytes read to {@code rawBytes} (may be null), for progress and checksums. */
     public static GenbankRecordReader open(String pathOrDash, InputStream stdin,
                                            dev.annotator.io.RawInputObserver rawBytes) {
+        return open(pathOrDash, stdin, rawBytes, false);
+    }
+
+    /** As above; with {@code inflateAhead}, gzip input is inflated on a thread of its own (see InputOpener). */
+    public static GenbankRecordReader open(String pathOrDash, InputStream stdin,
+                                           dev.annotator.io.RawInputObserver rawBytes, boolean inflateAhead) {
         return new GenbankRecordReader(InputOpener.displayName(pathOrDash),
-                InputOpener.open(pathOrDash, stdin, rawBytes));
+                InputOpener.open(pathOrDash, stdin, rawBytes, inflateAhead));
     }
 
     /**

@@ -26,9 +26,18 @@ public final class SequenceFiles {
      */
     public static SequenceReader open(String pathOrDash, InputStream stdin, Consumer<String> warnings,
                                       RecordLengthLimit limit, RawInputObserver rawBytes) {
+        return open(pathOrDash, stdin, warnings, limit, rawBytes, false);
+    }
+
+    /**
+     * @param inflateAhead inflate gzip input on a thread of its own, ahead of the parser (for callers that may use
+     *                     more than one thread)
+     */
+    public static SequenceReader open(String pathOrDash, InputStream stdin, Consumer<String> warnings,
+                                      RecordLengthLimit limit, RawInputObserver rawBytes, boolean inflateAhead) {
         if (!InputOpener.STDIN.equals(pathOrDash) && InputFormat.detect(pathOrDash) == InputFormat.GENBANK) {
-            return GenbankRecordReader.open(pathOrDash, stdin, rawBytes);
+            return GenbankRecordReader.open(pathOrDash, stdin, rawBytes, inflateAhead);
         }
-        return FastaRecordReader.open(pathOrDash, stdin, warnings, limit, rawBytes);
+        return FastaRecordReader.open(pathOrDash, stdin, warnings, limit, rawBytes, inflateAhead);
     }
 }

@@ -219,6 +219,80 @@ class InputOpenerTest {
         assertThat(((AnnotatorException) e).exitCode()).isEqualTo(74);
     }
 
+    /**
+     * Gzip inflated on a thread of its own: the same bytes (several hand-over buffers, several members), the
+     * same one-line errors, every raw byte shown to the observer.
+     */
+    @Test
+    void inflatingAheadGivesTheSameBytesAndTheSameErrors() throws IOException {
+        byte[] big = new byte[5 * InputOpener.INFLATE_AHEAD_BUFFER + 12_345];
+        java.util.SplittableRandom rng = new java.util.SplittableRandom(3);
+        for (int i = 0; i < big.length; i++) {
+            big[i] = i % 61 == 60 ? (byte) '\n' : (byte) "ACGT".charAt(rng.nextInt(4));
+        }
+        byte[] twoMembers = concat(gzip(big), gzip(TEXT));
+        Path f = write("big.fa.gz", twoMembers);
+        long[] seen = new long[1];
+        byte[] read;
+        try (InputStream in = InputOpener.open(f.toString(), null, (b, off, len) -> seen[0] += len, true)) {
+            read = in.readAllBytes();
+        }
+        assertThat(read).isEqualTo(concat(big, TEXT));
+        assertThat(seen[0]).isEqualTo(twoMembers.length);
+
+        Path cut = write("cut-big.fa.gz", Arrays.copyOf(twoMembers, twoMembers.length / 2));
+        assertThat(catchThrowableOfType(BadInputException.class, () -> readAhead(cut.toString(), null)))
+                .hasMessage(cut + ": truncated or corrupt gzip data");
+        byte[] crc = gzip(TEXT);
+        crc[crc.length - 8] ^= 0x01;
+        Path badCrc = write("crc-ahead.gz", crc);
+        assertThat(catchThrowableOfType(BadInputException.class, () -> readAhead(badCrc.toString(), null)))
+                .hasMessage(badCrc + ": truncated or corrupt gzip data");
+        Path appended = write("appended-ahead.gz", concat(gzip(TEXT), "appended text\n".getBytes(StandardCharsets.US_ASCII)));
+        assertThat(catchThrowableOfType(BadInputException.class, () -> readAhead(appended.toString(), null)))
+                .hasMessageStartingWith(appended + ": data after the end of the gzip data");
+        // plain input is read as it is, with or without the flag
+        Path plain = write("plain-ahead.fa", TEXT);
+        assertThat(readAhead(plain.toString(), null)).isEqualTo(TEXT);
+    }
+
+    @Test
+    void deviceFailureWhileInflatingAheadIsIoFailure() throws IOException {
+        InputStream failing = new SequenceInputStream(new ByteArrayInputStream(gzip(TEXT)), new InputStream() {
+            @Override
+            public int read() throws IOException {
+                throw new IOException("device gone");
+            }
+        });
+        IoFailureException e = catchThrowableOfType(IoFailureException.class, () -> readAhead("-", failing));
+        assertThat(e).hasMessage("<stdin>: read failed: device gone");
+    }
+
+    @Test
+    void closingBeforeTheEndStopsTheInflatingThread() throws Exception {
+        byte[] big = new byte[8 * InputOpener.INFLATE_AHEAD_BUFFER];
+        Arrays.fill(big, (byte) 'A');
+        Path f = write("early.fa.gz", gzip(big));
+        try (InputStream in = InputOpener.open(f.toString(), null, null, true)) {
+            assertThat(in.readNBytes(10)).hasSize(10);
+        }
+        long deadline = System.nanoTime() + 5_000_000_000L;
+        while (inflatingThreads() > 0 && System.nanoTime() < deadline) {
+            Thread.sleep(10);
+        }
+        assertThat(inflatingThreads()).isZero();
+    }
+
+    private static long inflatingThreads() {
+        return Thread.getAllStackTraces().keySet().stream().filter(t -> t.getName().equals("input-inflate")).count();
+    }
+
+    private byte[] readAhead(String path, InputStream stdin) throws IOException {
+        try (InputStream in = InputOpener.open(path, stdin, null, true)) {
+            return in.readAllBytes();
+        }
+    }
+
     private byte[] readAll(String path, InputStream stdin) throws IOException {
         try (InputStream in = InputOpener.open(path, stdin)) {
             return in.readAllBytes();
