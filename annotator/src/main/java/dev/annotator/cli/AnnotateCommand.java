@@ -210,8 +210,11 @@ final class AnnotateCommand implements Callable<Integer> {
         }
         RunSummary summary = run;
         if (!quiet) {
-            err.println(String.format(Locale.ROOT, "annotator: %d record(s), %.3f Mbp, %d segment(s) in %.2f s (%.1f Mbp/s)",
-                    summary.records(), summary.bases() / 1e6, summary.segments(), summary.seconds(),
+            // a gene model's features are genes (each written as a gene and its CDS)
+            String features = hmm.labels().stream().anyMatch(dev.annotator.model.Label::stranded) ? "gene(s)"
+                    : "segment(s)";
+            err.println(String.format(Locale.ROOT, "annotator: %d record(s), %.3f Mbp, %d %s in %.2f s (%.1f Mbp/s)",
+                    summary.records(), summary.bases() / 1e6, summary.segments(), features, summary.seconds(),
                     summary.megabasesPerSecond()));
         }
         return 0;
