@@ -55,67 +55,77 @@ final class PosteriorMaxSumPass implements PosteriorBlockSink {
             lastBase(posterior, visitable, (t - from) * k);
             t--;
         }
-        final double tol = tolerance;
-        final int[] oneState = g.oneState;
-        final int[] oneSucc = g.oneSucc;
-        final int[] twoState = g.twoState;
-        final int[] twoLow = g.twoLow;
-        final int[] twoHigh = g.twoHigh;
-        final int[] twoSlot = g.twoSlot;
-        final int[] manyState = g.manyState;
-        final int[] manyOffset = g.manyOffset;
-        final int[] manySucc = g.manySucc;
-        final int[] manySlot = g.manySlot;
-        final int[] noneState = g.noneState;
-        final int slots = g.slots;
-        final byte[] back = next;
         for (; t >= from; t--) {
-            final int row = (t - from) * k;
-            final int backRow = t * slots;
-            final double[] lat = later;
-            final double[] cur = current;
-            for (int q = 0; q < oneState.length; q++) {
-                int i = oneState[q];
-                double score = unlessBarred(visitable[row + i], posterior[row + i] + lat[oneSucc[q]]);
-                cur[i] = score;
-            }
-            for (int q = 0; q < twoState.length; q++) {
-                int i = twoState[q];
-                int low = twoLow[q];
-                int high = twoHigh[q];
-                double bl = lat[low];
-                double bh = lat[high];
-                // minus infinity plus the tolerance stays minus infinity, so a finite higher score replaces an
-                // impossible lower one, as in the scan over many successors
-                boolean takeHigh = bh > bl + tol;
-                double bj = takeHigh ? bh : bl;
-                double score = unlessBarred(visitable[row + i], posterior[row + i] + bj);
-                cur[i] = score;
-                back[backRow + twoSlot[q]] = (byte) (takeHigh ? high : low);
-            }
-            for (int q = 0; q < manyState.length; q++) {
-                int i = manyState[q];
-                int e = manyOffset[q];
-                int arg = manySucc[e];
-                double bj = lat[arg];
-                for (int r = e + 1; r < manyOffset[q + 1]; r++) {
-                    int j = manySucc[r];
-                    double cand = lat[j];
-                    if (cand > bj + tol) {
-                        bj = cand;
-                        arg = j;
-                    }
-                }
-                double score = unlessBarred(visitable[row + i], posterior[row + i] + bj);
-                cur[i] = score;
-                back[backRow + manySlot[q]] = (byte) arg;
-            }
-            for (int i : noneState) {
+            int row = (t - from) * k;
+            double[] lat = later;
+            double[] cur = current;
+            oneSuccessor(row, lat, cur, posterior, visitable);
+            twoSuccessors(row, t * g.slots, lat, cur, posterior, visitable);
+            manySuccessors(row, t * g.slots, lat, cur, posterior, visitable);
+            for (int i : g.noneState) {
                 cur[i] = Double.NEGATIVE_INFINITY;
             }
             finishBase(t);
         }
         expectedEnd = from;
+    }
+
+    private void oneSuccessor(int row, double[] lat, double[] cur, double[] posterior, double[] visitable) {
+        final int[] oneState = g.oneState;
+        final int[] oneSucc = g.oneSucc;
+        for (int q = 0; q < oneState.length; q++) {
+            int i = oneState[q];
+            cur[i] = unlessBarred(visitable[row + i], posterior[row + i] + lat[oneSucc[q]]);
+        }
+    }
+
+    private void twoSuccessors(int row, int backRow, double[] lat, double[] cur, double[] posterior,
+                               double[] visitable) {
+        final double tol = tolerance;
+        final int[] twoState = g.twoState;
+        final int[] twoLow = g.twoLow;
+        final int[] twoHigh = g.twoHigh;
+        final int[] twoSlot = g.twoSlot;
+        final byte[] back = next;
+        for (int q = 0; q < twoState.length; q++) {
+            int i = twoState[q];
+            int low = twoLow[q];
+            int high = twoHigh[q];
+            double bl = lat[low];
+            double bh = lat[high];
+            // minus infinity plus the tolerance stays minus infinity, so a finite higher score replaces an
+            // impossible lower one, as in the scan over many successors
+            boolean takeHigh = bh > bl + tol;
+            double bj = takeHigh ? bh : bl;
+            cur[i] = unlessBarred(visitable[row + i], posterior[row + i] + bj);
+            back[backRow + twoSlot[q]] = (byte) (takeHigh ? high : low);
+        }
+    }
+
+    private void manySuccessors(int row, int backRow, double[] lat, double[] cur, double[] posterior,
+                                double[] visitable) {
+        final double tol = tolerance;
+        final int[] manyState = g.manyState;
+        final int[] manyOffset = g.manyOffset;
+        final int[] manySucc = g.manySucc;
+        final int[] manySlot = g.manySlot;
+        final byte[] back = next;
+        for (int q = 0; q < manyState.length; q++) {
+            int i = manyState[q];
+            int e = manyOffset[q];
+            int arg = manySucc[e];
+            double bj = lat[arg];
+            for (int r = e + 1; r < manyOffset[q + 1]; r++) {
+                int j = manySucc[r];
+                double cand = lat[j];
+                if (cand > bj + tol) {
+                    bj = cand;
+                    arg = j;
+                }
+            }
+            cur[i] = unlessBarred(visitable[row + i], posterior[row + i] + bj);
+            back[backRow + manySlot[q]] = (byte) arg;
+        }
     }
 
     /** The last base of the sequence: a state's score is its posterior where it is visitable. */
