@@ -185,20 +185,8 @@ final class TransitionGroups {
     private double overflow(double v, int s, double[] in, int inOff) {
         final int[] oi = overflowIndex;
         final double[] op = overflowProb;
-        int q = overflowOffset[s];
-        int end = overflowOffset[s + 1];
-        // most states that overflow have one term more: no loop for them
-        if (q < end) {
+        for (int q = overflowOffset[s], end = overflowOffset[s + 1]; q < end; q++) {
             v += in[inOff + oi[q]] * op[q];
-            if (++q < end) {
-                v += in[inOff + oi[q]] * op[q];
-                if (++q < end) {
-                    v += in[inOff + oi[q]] * op[q];
-                    while (++q < end) {
-                        v += in[inOff + oi[q]] * op[q];
-                    }
-                }
-            }
         }
         return v;
     }
