@@ -62,7 +62,17 @@ public class KernelBenchmark {
 
     @Setup
     public void setUp() {
-        HmmParameters p = switch (topology) {
+        HmmParameters p = parameters(topology);
+        forwardBackward = new ForwardBackward(p);
+        viterbi = new Viterbi(p);
+        posteriorViterbi = new PosteriorViterbi(p);
+        baumWelch = new BaumWelchKernel(p);
+        sequence = sequence(topology);
+    }
+
+    /** The compiled model of a topology named as in {@link #topology}. */
+    static HmmParameters parameters(String topology) {
+        return switch (topology) {
             case "island" -> ModelCompiler.compile(ModelLoader.load("cpg-island"));
             case "dense3" -> randomModel(new SplittableRandom(3), 3, 2, 3);
             case "sparse20" -> randomModel(new SplittableRandom(20), 20, 5, 3);
@@ -71,20 +81,20 @@ public class KernelBenchmark {
             case "genesMinus" -> ModelCompiler.compile(StrandViews.of(ModelLoader.load("bacterial-genes"), '-'));
             default -> throw new IllegalArgumentException(topology);
         };
-        forwardBackward = new ForwardBackward(p);
-        viterbi = new Viterbi(p);
-        posteriorViterbi = new PosteriorViterbi(p);
-        baumWelch = new BaumWelchKernel(p);
+    }
+
+    /** The 1 Mbp a topology is measured on. */
+    static byte[] sequence(String topology) {
         SplittableRandom rng = new SplittableRandom(1);
         if (topology.startsWith("genes")) {
             HmmModel genes = ModelLoader.load("bacterial-genes");
-            sequence = new SequenceSimulator(genes).sample("bench", LENGTH, rng).record().bases();
-            return;
+            return new SequenceSimulator(genes).sample("bench", LENGTH, rng).record().bases();
         }
-        sequence = new byte[LENGTH];
+        byte[] bases = new byte[LENGTH];
         for (int i = 0; i < LENGTH; i++) {
-            sequence[i] = (byte) "ACGT".charAt(rng.nextInt(4));
+            bases[i] = (byte) "ACGT".charAt(rng.nextInt(4));
         }
+        return bases;
     }
 
     @Benchmark
