@@ -1,5 +1,6 @@
 package dev.annotator.bench;
 
+import dev.annotator.decode.StrandViews;
 import dev.annotator.hmm.BaumWelchKernel;
 import dev.annotator.hmm.ExpectedCounts;
 import dev.annotator.hmm.ForwardBackward;
@@ -35,9 +36,11 @@ import java.util.concurrent.TimeUnit;
  * <p>Topologies: {@code island} is the shipped two-state first-order model; {@code dense3} a three-state
  * second-order model with every transition allowed; {@code sparse20} a twenty-state model with orders up to 5
  * and about three allowed transitions per state, the shape of a coding-structure topology; {@code genes} the
- * shipped 43-state gene model (both strands, sparse transitions, orders up to 4). The first three run on uniform
- * random bases; {@code genes} on a sequence sampled from the model itself, so that genes, start and stop codons
- * occur as the decoder meets them in a genome.
+ * shipped 43-state gene model (both strands, sparse transitions, orders up to 4); {@code genesPlus} and
+ * {@code genesMinus} its two 25-state strand views, which are what a gene model is decoded with (forward-backward
+ * and posterior-Viterbi per strand). The first three run on uniform random bases; the gene topologies on a
+ * sequence sampled from the whole gene model, so that genes, start and stop codons occur as the decoder meets
+ * them in a genome.
  */
 @State(Scope.Benchmark)
 @BenchmarkMode(Mode.AverageTime)
@@ -48,7 +51,7 @@ import java.util.concurrent.TimeUnit;
 public class KernelBenchmark {
     private static final int LENGTH = 1_000_000;
 
-    @Param({"island", "dense3", "sparse20", "genes"})
+    @Param({"island", "dense3", "sparse20", "genes", "genesPlus", "genesMinus"})
     public String topology;
 
     private byte[] sequence;
@@ -59,27 +62,39 @@ public class KernelBenchmark {
 
     @Setup
     public void setUp() {
-        HmmParameters p = switch (topology) {
-            case "island" -> ModelCompiler.compile(ModelLoader.load("cpg-island"));
-            case "dense3" -> randomModel(new SplittableRandom(3), 3, 2, 3);
-            case "sparse20" -> randomModel(new SplittableRandom(20), 20, 5, 3);
-            case "genes" -> ModelCompiler.compile(ModelLoader.load("bacterial-genes"));
-            default -> throw new IllegalArgumentException(topology);
-        };
+        HmmParameters p = parameters(topology);
         forwardBackward = new ForwardBackward(p);
         viterbi = new Viterbi(p);
         posteriorViterbi = new PosteriorViterbi(p);
         baumWelch = new BaumWelchKernel(p);
+        sequence = sequence(topology);
+    }
+
+    /** The compiled model of a topology named as in {@link #topology}. */
+    static HmmParameters parameters(String topology) {
+        return switch (topology) {
+            case "island" -> ModelCompiler.compile(ModelLoader.load("cpg-island"));
+            case "dense3" -> randomModel(new SplittableRandom(3), 3, 2, 3);
+            case "sparse20" -> randomModel(new SplittableRandom(20), 20, 5, 3);
+            case "genes" -> ModelCompiler.compile(ModelLoader.load("bacterial-genes"));
+            case "genesPlus" -> ModelCompiler.compile(StrandViews.of(ModelLoader.load("bacterial-genes"), '+'));
+            case "genesMinus" -> ModelCompiler.compile(StrandViews.of(ModelLoader.load("bacterial-genes"), '-'));
+            default -> throw new IllegalArgumentException(topology);
+        };
+    }
+
+    /** The 1 Mbp a topology is measured on. */
+    static byte[] sequence(String topology) {
         SplittableRandom rng = new SplittableRandom(1);
-        if (topology.equals("genes")) {
+        if (topology.startsWith("genes")) {
             HmmModel genes = ModelLoader.load("bacterial-genes");
-            sequence = new SequenceSimulator(genes).sample("bench", LENGTH, rng).record().bases();
-            return;
+            return new SequenceSimulator(genes).sample("bench", LENGTH, rng).record().bases();
         }
-        sequence = new byte[LENGTH];
+        byte[] bases = new byte[LENGTH];
         for (int i = 0; i < LENGTH; i++) {
-            sequence[i] = (byte) "ACGT".charAt(rng.nextInt(4));
+            bases[i] = (byte) "ACGT".charAt(rng.nextInt(4));
         }
+        return bases;
     }
 
     @Benchmark

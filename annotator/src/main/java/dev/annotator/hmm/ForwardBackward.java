@@ -20,8 +20,9 @@ import java.util.Arrays;
  * vector at its last base, which is how a long record is split into windows decoded in parallel.
  *
  * <p>Two-state models take a dedicated path with the transitions in registers; larger models use the sparse
- * transition lists (cost proportional to allowed transitions). Instances are immutable and thread-safe; every
- * call allocates its own work arrays.
+ * transition lists (cost proportional to allowed transitions) in the layout of {@link TransitionGroups}. The
+ * forward pass that only keeps checkpoints writes its vectors to two alternating rows. Instances are immutable and
+ * thread-safe; every call allocates its own work arrays.
  */
 public final class ForwardBackward {
     /** Block length for small topologies (work arrays of a few hundred kB); see {@link #blockFor}. */
@@ -32,6 +33,9 @@ public final class ForwardBackward {
     private static final double RESCALE_BELOW = 0x1p-256;
     private static final double RESCALE_BY = 0x1p256;
     private static final double LOG_RESCALE = 256 * Math.log(2);
+    /** Row masks of {@link #forwardSpan}: every base's forward vector kept, or only the last two. */
+    private static final int ALL_ROWS = -1;
+    private static final int TWO_ROWS = 1;
     /** Emission rows at least this long are copied by a copy call rather than a loop. */
     private static final int COPY_CALL_FROM = 16;
 
@@ -45,14 +49,9 @@ public final class ForwardBackward {
     private final double a01;
     private final double a10;
     private final double a11;
-    // transitions padded to a fixed fan-in/fan-out of PAD when no state has more (a zero-probability slot points at
-    // state 0), so the sparse path runs without an inner loop of a few iterations per state
-    private static final int PAD = 4;
-    private final boolean padded;
-    private final int[] padPred;
-    private final double[] padPredProb;
-    private final int[] padSucc;
-    private final double[] padSuccProb;
+    // the sparse transitions grouped by fan-in (forward) and fan-out (backward), see TransitionGroups
+    private final TransitionGroups predGroups;
+    private final TransitionGroups succGroups;
 
     public ForwardBackward(HmmParameters parameters) {
         this(parameters, blockFor(parameters.stateCount()));
@@ -82,30 +81,10 @@ public final class ForwardBackward {
         this.a01 = twoStates ? parameters.transition(0, 1) : 0;
         this.a10 = twoStates ? parameters.transition(1, 0) : 0;
         this.a11 = twoStates ? parameters.transition(1, 1) : 0;
-        int maxFan = 0;
-        for (int s = 0; s < k; s++) {
-            maxFan = Math.max(maxFan, parameters.predOffset()[s + 1] - parameters.predOffset()[s]);
-            maxFan = Math.max(maxFan, parameters.succOffset()[s + 1] - parameters.succOffset()[s]);
-        }
-        this.padded = !twoStates && maxFan <= PAD;
-        this.padPred = new int[padded ? k * PAD : 0];
-        this.padPredProb = new double[padPred.length];
-        this.padSucc = new int[padPred.length];
-        this.padSuccProb = new double[padPred.length];
-        if (padded) {
-            for (int s = 0; s < k; s++) {
-                int slot = 0;
-                for (int q = parameters.predOffset()[s]; q < parameters.predOffset()[s + 1]; q++, slot++) {
-                    padPred[s * PAD + slot] = parameters.predState()[q];
-                    padPredProb[s * PAD + slot] = parameters.predProb()[q];
-                }
-                slot = 0;
-                for (int q = parameters.succOffset()[s]; q < parameters.succOffset()[s + 1]; q++, slot++) {
-                    padSucc[s * PAD + slot] = parameters.succState()[q];
-                    padSuccProb[s * PAD + slot] = parameters.succProb()[q];
-                }
-            }
-        }
+        this.predGroups = new TransitionGroups(parameters.predOffset(), parameters.predState(),
+                parameters.predProb());
+        this.succGroups = new TransitionGroups(parameters.succOffset(), parameters.succState(),
+                parameters.succProb());
     }
 
     public int blockSize() {
@@ -163,7 +142,8 @@ public final class ForwardBackward {
         int blocks = (n + blockSize - 1) / blockSize;
         int maxLen = Math.min(blockSize, n);
         int[] sy = new int[maxLen];
-        double[] alpha = new double[maxLen * k];
+        // the forward pass alone keeps two rows; recomputing a block for the backward pass keeps all of them
+        double[] alpha = new double[(sink == null ? Math.min(2, maxLen) : maxLen) * k];
         double[] vec = initialVector(before);
         double[] checkpoints = sink == null ? null : new double[blocks * k];
 
@@ -176,8 +156,8 @@ public final class ForwardBackward {
                 System.arraycopy(vec, 0, checkpoints, b * k, k);
             }
             symbols.encode(seq, start, end, sy);
-            rescales += forwardSpan(sy, end - start, vec, before == null && b == 0, alpha, start);
-            System.arraycopy(alpha, (end - start - 1) * k, vec, 0, k);
+            rescales += forwardSpan(sy, end - start, vec, before == null && b == 0, alpha, start, TWO_ROWS);
+            System.arraycopy(alpha, ((end - start - 1) & TWO_ROWS) * k, vec, 0, k);
         }
         double sum = 0;
         for (int s = 0; s < k; s++) {
@@ -205,7 +185,7 @@ public final class ForwardBackward {
             int len = end - start;
             System.arraycopy(checkpoints, b * k, vec, 0, k);
             symbols.encode(seq, start, end, sy);
-            forwardSpan(sy, len, vec, before == null && b == 0, alpha, start);
+            forwardSpan(sy, len, vec, before == null && b == 0, alpha, start, ALL_ROWS);
             backwardSpan(sy, len, nextSymbol, beta, alpha, post, weighted);
             emissionRows(sy, len, emis);
             sink.block(start, end, post, emis);
@@ -253,12 +233,12 @@ public final class ForwardBackward {
         }
         int maxLen = Math.min(blockSize, n);
         int[] sy = new int[maxLen];
-        double[] alpha = new double[maxLen * k];
+        double[] alpha = new double[2 * k];
         for (int start = from, b = 0; start < to; start += blockSize, b++) {
             int end = Math.min(to, start + blockSize);
             symbols.encode(seq, start, end, sy);
-            forwardSpan(sy, end - start, vec, before == null && b == 0, alpha, start);
-            System.arraycopy(alpha, (end - start - 1) * k, vec, 0, k);
+            forwardSpan(sy, end - start, vec, before == null && b == 0, alpha, start, TWO_ROWS);
+            System.arraycopy(alpha, ((end - start - 1) & TWO_ROWS) * k, vec, 0, k);
         }
         return normalised(vec);
     }
@@ -324,13 +304,17 @@ public final class ForwardBackward {
      * where the start distribution applies. Returns how many times the vectors were rescaled by 2^256.
      *
      * @param position0 position of the first base, for error messages
+     * @param rowMask   {@link #ALL_ROWS}, or {@link #TWO_ROWS} when only the last vector is wanted: base i then
+     *                  goes to row {@code i & 1}, and the rows stay in the first level of cache
      */
-    private int forwardSpan(int[] sy, int len, double[] prev, boolean atStart, double[] alpha, int position0) {
-        return twoStates ? forwardSpan2(sy, len, prev, atStart, alpha, position0)
-                : forwardSpanSparse(sy, len, prev, atStart, alpha, position0);
+    private int forwardSpan(int[] sy, int len, double[] prev, boolean atStart, double[] alpha, int position0,
+                            int rowMask) {
+        return twoStates ? forwardSpan2(sy, len, prev, atStart, alpha, position0, rowMask)
+                : forwardSpanSparse(sy, len, prev, atStart, alpha, position0, rowMask);
     }
 
-    private int forwardSpan2(int[] sy, int len, double[] prev, boolean atStart, double[] alpha, int position0) {
+    private int forwardSpan2(int[] sy, int len, double[] prev, boolean atStart, double[] alpha, int position0,
+                             int rowMask) {
         final double[] e = em;
         final double t00 = a00;
         final double t01 = a01;
@@ -367,23 +351,22 @@ public final class ForwardBackward {
                 n1 *= RESCALE_BY;
                 rescales++;
             }
-            alpha[2 * i] = n0;
-            alpha[2 * i + 1] = n1;
+            int r = 2 * (i & rowMask);
+            alpha[r] = n0;
+            alpha[r + 1] = n1;
             p0 = n0;
             p1 = n1;
         }
         return rescales;
     }
 
-    private int forwardSpanSparse(int[] sy, int len, double[] prev, boolean atStart, double[] alpha, int position0) {
+    private int forwardSpanSparse(int[] sy, int len, double[] prev, boolean atStart, double[] alpha, int position0,
+                                  int rowMask) {
         final double[] e = em;
-        final int[] predOffset = p.predOffset();
-        final int[] predState = p.predState();
-        final double[] predProb = p.predProb();
         final double[] startProb = p.startArray();
         int rescales = 0;
         for (int i = 0; i < len; i++) {
-            int off = i * k;
+            int off = (i & rowMask) * k;
             int y = sy[i] * k;
             double sum = 0;
             if (i == 0 && atStart) {
@@ -394,28 +377,8 @@ public final class ForwardBackward {
                 }
             } else {
                 double[] src = i == 0 ? prev : alpha;
-                int srcOff = i == 0 ? 0 : off - k;
-                if (padded) {
-                    final int[] pp = padPred;
-                    final double[] pw = padPredProb;
-                    for (int j = 0, b = 0; j < k; j++, b += PAD) {
-                        double s = src[srcOff + pp[b]] * pw[b] + src[srcOff + pp[b + 1]] * pw[b + 1]
-                                + src[srcOff + pp[b + 2]] * pw[b + 2] + src[srcOff + pp[b + 3]] * pw[b + 3];
-                        double v = s * e[y + j];
-                        alpha[off + j] = v;
-                        sum += v;
-                    }
-                } else {
-                    for (int j = 0; j < k; j++) {
-                        double s = 0;
-                        for (int q = predOffset[j]; q < predOffset[j + 1]; q++) {
-                            s += src[srcOff + predState[q]] * predProb[q];
-                        }
-                        double v = s * e[y + j];
-                        alpha[off + j] = v;
-                        sum += v;
-                    }
-                }
+                int srcOff = i == 0 ? 0 : ((i - 1) & rowMask) * k;
+                sum = predGroups.gather(src, srcOff, alpha, off, e, y);
             }
             if (sum < RESCALE_BELOW) {
                 if (!(sum > 0)) {
@@ -484,9 +447,6 @@ public final class ForwardBackward {
     private void backwardSpanSparse(int[] sy, int len, int nextSymbol, double[] beta, double[] alpha,
                                     double[] post, double[] weighted) {
         final double[] e = em;
-        final int[] succOffset = p.succOffset();
-        final int[] succState = p.succState();
-        final double[] succProb = p.succProb();
         int next = nextSymbol;
         for (int i = len - 1; i >= 0; i--) {
             if (next >= 0) {
@@ -494,26 +454,7 @@ public final class ForwardBackward {
                 for (int j = 0; j < k; j++) {
                     weighted[j] = e[y + j] * beta[j];
                 }
-                double sum = 0;
-                if (padded) {
-                    final int[] ps = padSucc;
-                    final double[] pw = padSuccProb;
-                    for (int s = 0, b = 0; s < k; s++, b += PAD) {
-                        double v = pw[b] * weighted[ps[b]] + pw[b + 1] * weighted[ps[b + 1]]
-                                + pw[b + 2] * weighted[ps[b + 2]] + pw[b + 3] * weighted[ps[b + 3]];
-                        beta[s] = v;
-                        sum += v;
-                    }
-                } else {
-                    for (int s = 0; s < k; s++) {
-                        double v = 0;
-                        for (int q = succOffset[s]; q < succOffset[s + 1]; q++) {
-                            v += succProb[q] * weighted[succState[q]];
-                        }
-                        beta[s] = v;
-                        sum += v;
-                    }
-                }
+                double sum = succGroups.gather(weighted, 0, beta, 0, null, 0);
                 if (sum < RESCALE_BELOW) {
                     for (int s = 0; s < k; s++) {
                         beta[s] *= RESCALE_BY;

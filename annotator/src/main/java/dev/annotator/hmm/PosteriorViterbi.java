@@ -23,8 +23,9 @@ package dev.annotator.hmm;
  * is positive yet underflows to 0 in double precision. {@link #decode(double[])} has only posteriors and tests
  * those.
  *
- * <p>Memory: one back-pointer byte per state and position (at most {@link #MAX_STATES} states) plus the
- * forward-backward checkpoints. Instances are immutable and thread-safe.
+ * <p>Memory: one back-pointer byte per position for each state with two or more allowed successors
+ * ({@link #backPointerBytesPerBase()}; a state with one successor needs none), at most {@link #MAX_STATES} states,
+ * plus the forward-backward checkpoints. Instances are immutable and thread-safe.
  */
 public final class PosteriorViterbi {
     public static final double TIE_TOLERANCE = Viterbi.TIE_TOLERANCE;
@@ -33,8 +34,7 @@ public final class PosteriorViterbi {
     private final HmmParameters p;
     private final ForwardBackward forwardBackward;
     // successors through transitions of probability above zero only, ascending by state within each source
-    private final int[] succOffset;
-    private final int[] succState;
+    private final SuccessorGroups successors;
 
     public PosteriorViterbi(HmmParameters parameters) {
         this(parameters, ForwardBackward.blockFor(parameters.stateCount()));
@@ -51,14 +51,14 @@ public final class PosteriorViterbi {
         int[] off = parameters.succOffset();
         int[] to = parameters.succState();
         double[] prob = parameters.succProb();
-        succOffset = new int[k + 1];
+        int[] succOffset = new int[k + 1];
         int kept = 0;
         for (int q = 0; q < prob.length; q++) {
             if (prob[q] > 0) {
                 kept++;
             }
         }
-        succState = new int[kept];
+        int[] succState = new int[kept];
         int fill = 0;
         for (int s = 0; s < k; s++) {
             for (int q = off[s]; q < off[s + 1]; q++) {
@@ -68,6 +68,12 @@ public final class PosteriorViterbi {
             }
             succOffset[s + 1] = fill;
         }
+        this.successors = new SuccessorGroups(succOffset, succState);
+    }
+
+    /** Back-pointer bytes per base: one per state with two or more allowed successors. */
+    public int backPointerBytesPerBase() {
+        return successors.slots;
     }
 
     /**
@@ -127,12 +133,14 @@ public final class PosteriorViterbi {
     }
 
     private PosteriorMaxSumPass newPass(int n) {
-        int k = p.stateCount();
-        checkBackPointersFit(n, k);
-        return new PosteriorMaxSumPass(n, k, p.startArray(), succOffset, succState, TIE_TOLERANCE);
+        checkBackPointersFit(n, successors.slots);
+        return new PosteriorMaxSumPass(n, p.startArray(), successors, TIE_TOLERANCE);
     }
 
-    /** The back-pointers are one byte array, so length x states must stay within Java's array limit. */
+    /**
+     * The back-pointers are one byte array, so length x states (those with several successors) must stay within
+     * Java's array limit.
+     */
     static void checkBackPointersFit(long length, int states) {
         if (length * states > Integer.MAX_VALUE - 8) {
             throw new IllegalArgumentException("posterior-Viterbi back-pointers for " + length + " bases x " + states
