@@ -8,7 +8,7 @@ import java.util.List;
 /**
  * Posterior decoding: for each reported label, the maximal runs of bases where the label's posterior exceeds
  * 0.5. Fed by the backward pass (blocks arrive last to first), so runs are opened at their end and closed at
- * their start; nothing per base is stored. A run still open at the start of the decoded range is closed there;
+ * their start; nothing per base is kept beyond the current block. A run still open at the start of the decoded range is closed there;
  * {@link WindowStitcher} joins runs cut by window boundaries.
  */
 final class PosteriorRuns implements PosteriorBlockSink {
@@ -20,6 +20,8 @@ final class PosteriorRuns implements PosteriorBlockSink {
     private final List<RawSegment> closed = new ArrayList<>();
     private int plotLabel = -1;
     private WindowProfile plot;
+    /** The plotted label's posterior of the current block's bases, handed to the plot once the block is done. */
+    private double[] plotted;
 
     PosteriorRuns(ReportedLabels labels, int rangeStart, int stateCount) {
         this.labels = labels;
@@ -29,7 +31,7 @@ final class PosteriorRuns implements PosteriorBlockSink {
         this.openEnd = new int[labels.size()];
     }
 
-    /** Also hands every base's posterior of one label to a plot, in the descending order the runs see them. */
+    /** Also hands every base's posterior of one label to a plot, block by block as the runs see them. */
     void feedPlot(int label, WindowProfile plot) {
         this.plotLabel = label;
         this.plot = plot;
@@ -40,12 +42,12 @@ final class PosteriorRuns implements PosteriorBlockSink {
         boolean[][] masks = labels.stateMasks();
         for (int r = 0; r < open.length; r++) {
             boolean[] mask = masks[r];
-            WindowProfile plotted = r == plotLabel ? plot : null;
+            double[] values = r == plotLabel ? plotValues(end - start) : null;
             for (int t = end - 1; t >= start; t--) {
                 int off = (t - start) * stateCount;
                 double p = SegmentAccumulator.labelPosterior(mask, posterior, off);
-                if (plotted != null) {
-                    plotted.plotBase(t, p);
+                if (values != null) {
+                    values[t - start] = p;
                 }
                 if (p > 0.5) {
                     if (open[r] == null) {
@@ -60,7 +62,17 @@ final class PosteriorRuns implements PosteriorBlockSink {
             if (start == rangeStart && open[r] != null) {
                 close(r, rangeStart);
             }
+            if (values != null) {
+                plot.plotValues(start, end, values, 1, 0);
+            }
         }
+    }
+
+    private double[] plotValues(int length) {
+        if (plotted == null || plotted.length < length) {
+            plotted = new double[length];
+        }
+        return plotted;
     }
 
     private void close(int label, int start0) {
