@@ -12,7 +12,6 @@ import java.io.IOException;
 import java.io.Writer;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
 
 /**
  * A self-contained HTML report of one annotation run, collected record by record as the records are done and
@@ -131,7 +130,7 @@ public final class HtmlReport {
         runRow(x, "command", options);
         runRow(x, "tool", "annotator " + version);
         runRow(x, "date", date);
-        runRow(x, "runtime", String.format(Locale.ROOT, "%.2f s", seconds));
+        runRow(x, "runtime", Axis.fixed(seconds, 2) + " s");
         long total = rows.stream().mapToLong(Row::length).sum();
         runRow(x, "records", rows.size() + " (" + Axis.bases(total) + ")");
         x.close("table");
