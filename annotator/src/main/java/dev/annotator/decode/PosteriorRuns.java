@@ -8,8 +8,8 @@ import java.util.List;
 /**
  * Posterior decoding: for each reported label, the maximal runs of bases where the label's posterior exceeds
  * 0.5. Fed by the backward pass (blocks arrive last to first), so runs are opened at their end and closed at
- * their start; nothing per base is kept beyond the current block. A run still open at the start of the decoded range is closed there;
- * {@link WindowStitcher} joins runs cut by window boundaries.
+ * their start; nothing per base is kept beyond the current block. A run still open at the start of the decoded
+ * range is closed there; {@link WindowStitcher} joins runs cut by window boundaries.
  */
 final class PosteriorRuns implements PosteriorBlockSink {
     private final ReportedLabels labels;

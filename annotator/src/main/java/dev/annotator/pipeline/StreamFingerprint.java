@@ -12,34 +12,52 @@ import java.util.concurrent.BlockingQueue;
 /**
  * Size and SHA-256 of an input taken from the bytes as the run reads them (no second pass over the file). The
  * digest runs on a thread of its own, fed copies of the bytes through a short queue: reading a long record is the
- * one part of a run that cannot use both cores, and hashing on the reading thread would lengthen it.
+ * one part of a run that cannot use both cores, and hashing on the reading thread would lengthen it. The thread
+ * also sets the digest up (the first use of the security providers takes a few milliseconds), and the copies go
+ * into a fixed set of buffers handed back and forth, so the reader allocates nothing per chunk.
  */
 final class StreamFingerprint implements RawInputObserver, AutoCloseable {
     /** Chunks waiting to be hashed; the reader waits when the digest falls this far behind. */
     private static final int QUEUE = 64;
-    private static final byte[] END = new byte[0];
+    /** Size of the reused buffers: the input is read through a buffer of this size, so most chunks fit. */
+    private static final int BUFFER = 1 << 16;
+    private static final Chunk END = new Chunk(new byte[0], 0);
 
-    private final MessageDigest sha;
-    private final BlockingQueue<byte[]> chunks = new ArrayBlockingQueue<>(QUEUE);
+    private record Chunk(byte[] bytes, int length) {
+    }
+
+    private final BlockingQueue<Chunk> chunks = new ArrayBlockingQueue<>(QUEUE);
+    /** Buffers the digest is done with; the reader takes one before allocating. */
+    private final BlockingQueue<byte[]> free = new ArrayBlockingQueue<>(QUEUE + 1);
     private final Thread digester;
+    private String sha256;
     private long bytes;
     private boolean ended;
 
     StreamFingerprint() {
-        try {
-            sha = MessageDigest.getInstance("SHA-256");
-        } catch (NoSuchAlgorithmException e) {
-            throw new IllegalStateException("every Java platform has SHA-256", e);
-        }
         digester = new Thread(this::digest, "input-sha256");
         digester.setDaemon(true);
         digester.start();
     }
 
     private void digest() {
+        MessageDigest sha;
         try {
-            for (byte[] chunk = chunks.take(); chunk != END; chunk = chunks.take()) {
-                sha.update(chunk);
+            sha = MessageDigest.getInstance("SHA-256");
+        } catch (NoSuchAlgorithmException e) {
+            sha = null; // every Java platform has SHA-256; should this one not, the chunks are still taken
+        }
+        try {
+            for (Chunk chunk = chunks.take(); chunk != END; chunk = chunks.take()) {
+                if (sha != null) {
+                    sha.update(chunk.bytes(), 0, chunk.length());
+                }
+                if (chunk.bytes().length == BUFFER) {
+                    free.offer(chunk.bytes());
+                }
+            }
+            if (sha != null) {
+                sha256 = HexFormat.of().formatHex(sha.digest());
             }
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
@@ -51,12 +69,16 @@ final class StreamFingerprint implements RawInputObserver, AutoCloseable {
         if (length == 0) {
             return;
         }
-        byte[] copy = java.util.Arrays.copyOfRange(b, offset, offset + length);
-        put(copy);
+        byte[] copy = length <= BUFFER ? free.poll() : null;
+        if (copy == null) {
+            copy = new byte[Math.max(length, BUFFER)];
+        }
+        System.arraycopy(b, offset, copy, 0, length);
+        put(new Chunk(copy, length));
         bytes += length;
     }
 
-    private void put(byte[] chunk) {
+    private void put(Chunk chunk) {
         try {
             chunks.put(chunk);
         } catch (InterruptedException e) {
@@ -68,7 +90,10 @@ final class StreamFingerprint implements RawInputObserver, AutoCloseable {
     /** Call once the input has been read to its end: waits for the digest to catch up. */
     InputFingerprint finish(String name) {
         end();
-        return new InputFingerprint(name, bytes, HexFormat.of().formatHex(sha.digest()));
+        if (sha256 == null) {
+            throw new IllegalStateException("no SHA-256 of the input: none on this platform, or hashing interrupted");
+        }
+        return new InputFingerprint(name, bytes, sha256);
     }
 
     /** Ends the digest thread (also when the run failed before the end of its input). */
