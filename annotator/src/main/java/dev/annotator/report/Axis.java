@@ -54,8 +54,13 @@ final class Axis {
      * go through the formatter.
      */
     static String fixed(double v, int decimals) {
+        return appendFixed(new StringBuilder(16), v, decimals).toString();
+    }
+
+    /** Appends {@link #fixed}{@code (v, decimals)} to {@code b}. */
+    static StringBuilder appendFixed(StringBuilder b, double v, int decimals) {
         if (!Double.isFinite(v)) {
-            return "NA";
+            return b.append("NA");
         }
         if (decimals < TEN.length) {
             boolean negative = Double.compare(v, 0.0) < 0; // as the formatter: -0.0 gives "-0.000"
@@ -64,22 +69,20 @@ final class Axis {
             double fraction = scaled - whole;
             if (scaled < 1e9 && Math.abs(fraction - 0.5) > 1e-6) {
                 long units = (long) whole + (fraction > 0.5 ? 1 : 0);
-                StringBuilder b = new StringBuilder(16);
                 if (negative) {
                     b.append('-');
                 }
                 b.append(units / TEN[decimals]);
                 if (decimals > 0) {
                     b.append('.');
-                    String digits = Long.toString(units % TEN[decimals]);
-                    for (int i = digits.length(); i < decimals; i++) {
-                        b.append('0');
+                    long decimalPart = units % TEN[decimals];
+                    for (int d = decimals - 1; d >= 0; d--) {
+                        b.append((char) ('0' + decimalPart / TEN[d] % 10));
                     }
-                    b.append(digits);
                 }
-                return b.toString();
+                return b;
             }
         }
-        return String.format(Locale.ROOT, "%." + decimals + "f", v);
+        return b.append(String.format(Locale.ROOT, "%." + decimals + "f", v));
     }
 }

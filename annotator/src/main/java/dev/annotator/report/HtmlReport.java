@@ -141,7 +141,7 @@ public final class HtmlReport implements AutoCloseable {
             Plotted plotted = new Plotted(a.seqid(), a.length(), p.plot(), a.segments(), p.trackLabel());
             FutureTask<String> svg = new FutureTask<>(() -> {
                 StringBuilder b = new StringBuilder(4096 + 256 * plotted.segments().size());
-                RecordPlot.draw(new Xml(b), plotted);
+                RecordPlot.draw(b, plotted);
                 return b.toString();
             });
             if (drawing == null) {

@@ -52,6 +52,17 @@ final class Xml {
         }
     }
 
+    /** {@code s} escaped for text or an attribute value. */
+    static String escaped(String s) {
+        StringBuilder b = new StringBuilder(s.length() + 16);
+        try {
+            escapeTo(b, s);
+        } catch (IOException e) {
+            throw new IllegalStateException("a StringBuilder does not fail", e);
+        }
+        return b.toString();
+    }
+
     /** Appends {@code s} escaped; most values need no escaping and are appended as they are. */
     private static void escapeTo(Appendable out, String s) throws IOException {
         int n = s.length();
