@@ -20,8 +20,8 @@ final class PosteriorRuns implements PosteriorBlockSink {
     private final List<RawSegment> closed = new ArrayList<>();
     private int plotLabel = -1;
     private WindowProfile plot;
-    /** The plotted label's posterior of the current block's bases, handed to the plot once the block is done. */
-    private double[] plotted;
+    /** A label of several states: its posterior of the current block's bases, handed to the plot after the block. */
+    private double[] plotScratch;
 
     PosteriorRuns(ReportedLabels labels, int rangeStart, int stateCount) {
         this.labels = labels;
@@ -42,7 +42,10 @@ final class PosteriorRuns implements PosteriorBlockSink {
         boolean[][] masks = labels.stateMasks();
         for (int r = 0; r < open.length; r++) {
             boolean[] mask = masks[r];
-            double[] values = r == plotLabel ? plotValues(end - start) : null;
+            // a one-state label's posterior is read from the posterior rows; a label of several states is summed
+            // per base below and kept for the plot
+            boolean plotted = r == plotLabel;
+            double[] values = plotted && plot.plottedState() < 0 ? plotValues(end - start) : null;
             for (int t = end - 1; t >= start; t--) {
                 int off = (t - start) * stateCount;
                 double p = SegmentAccumulator.labelPosterior(mask, posterior, off);
@@ -64,15 +67,17 @@ final class PosteriorRuns implements PosteriorBlockSink {
             }
             if (values != null) {
                 plot.plotValues(start, end, values, 1, 0);
+            } else if (plotted) {
+                plot.plotValues(start, end, posterior, stateCount, plot.plottedState());
             }
         }
     }
 
     private double[] plotValues(int length) {
-        if (plotted == null || plotted.length < length) {
-            plotted = new double[length];
+        if (plotScratch == null || plotScratch.length < length) {
+            plotScratch = new double[length];
         }
-        return plotted;
+        return plotScratch;
     }
 
     private void close(int label, int start0) {

@@ -180,6 +180,11 @@ final class WindowProfile implements PosteriorBlockSink {
         return max != null && track == null && product == null;
     }
 
+    /** The plotted label's only state, whose posterior is the label's; -1 when the label has several. */
+    int plottedState() {
+        return trackState;
+    }
+
     /** Natural log of the product of this window's ratios for reported label {@code r}. */
     double logRatio(int r) {
         return Math.log(product[r]) + exponent[r] * Math.log(2);
