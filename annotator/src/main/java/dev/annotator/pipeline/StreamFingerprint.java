@@ -13,14 +13,14 @@ import java.util.concurrent.BlockingQueue;
  * Size and SHA-256 of an input taken from the bytes as the run reads them (no second pass over the file). The
  * digest runs on a thread of its own, fed copies of the bytes through a short queue: reading a long record is the
  * one part of a run that cannot use both cores, and hashing on the reading thread would lengthen it. The thread
- * also sets the digest up (the first use of the security providers takes a few milliseconds), and the copies go
- * into a fixed set of buffers handed back and forth, so the reader allocates nothing per chunk.
+ * also sets the digest up (the first use of the security providers takes a few milliseconds). The reader gathers
+ * the bytes into buffers of a megabyte, handed back and forth between the threads, so it allocates nothing per read
+ * and wakes the digest once per megabyte rather than once per read.
  */
 final class StreamFingerprint implements RawInputObserver, AutoCloseable {
-    /** Chunks waiting to be hashed; the reader waits when the digest falls this far behind. */
-    private static final int QUEUE = 64;
-    /** Size of the reused buffers: the input is read through a buffer of this size, so most chunks fit. */
-    private static final int BUFFER = 1 << 16;
+    /** Buffers waiting to be hashed; the reader waits when the digest falls this far behind. */
+    private static final int QUEUE = 8;
+    private static final int BUFFER = 1 << 20;
     private static final Chunk END = new Chunk(new byte[0], 0);
 
     private record Chunk(byte[] bytes, int length) {
@@ -30,6 +30,9 @@ final class StreamFingerprint implements RawInputObserver, AutoCloseable {
     /** Buffers the digest is done with; the reader takes one before allocating. */
     private final BlockingQueue<byte[]> free = new ArrayBlockingQueue<>(QUEUE + 1);
     private final Thread digester;
+    /** The buffer the reader is filling, and how much of it is filled. */
+    private byte[] filling;
+    private int filled;
     private String sha256;
     private long bytes;
     private boolean ended;
@@ -52,9 +55,7 @@ final class StreamFingerprint implements RawInputObserver, AutoCloseable {
                 if (sha != null) {
                     sha.update(chunk.bytes(), 0, chunk.length());
                 }
-                if (chunk.bytes().length == BUFFER) {
-                    free.offer(chunk.bytes());
-                }
+                free.offer(chunk.bytes());
             }
             if (sha != null) {
                 sha256 = HexFormat.of().formatHex(sha.digest());
@@ -66,16 +67,29 @@ final class StreamFingerprint implements RawInputObserver, AutoCloseable {
 
     @Override
     public void consumed(byte[] b, int offset, int length) {
-        if (length == 0) {
-            return;
-        }
-        byte[] copy = length <= BUFFER ? free.poll() : null;
-        if (copy == null) {
-            copy = new byte[Math.max(length, BUFFER)];
-        }
-        System.arraycopy(b, offset, copy, 0, length);
-        put(new Chunk(copy, length));
         bytes += length;
+        while (length > 0) {
+            if (filling == null) {
+                filling = free.poll();
+                if (filling == null) {
+                    filling = new byte[BUFFER];
+                }
+                filled = 0;
+            }
+            int n = Math.min(length, BUFFER - filled);
+            System.arraycopy(b, offset, filling, filled, n);
+            filled += n;
+            offset += n;
+            length -= n;
+            if (filled == BUFFER) {
+                handOver();
+            }
+        }
+    }
+
+    private void handOver() {
+        put(new Chunk(filling, filled));
+        filling = null;
     }
 
     private void put(Chunk chunk) {
@@ -107,6 +121,9 @@ final class StreamFingerprint implements RawInputObserver, AutoCloseable {
             return;
         }
         ended = true;
+        if (filling != null && filled > 0) {
+            handOver();
+        }
         put(END);
         try {
             digester.join();

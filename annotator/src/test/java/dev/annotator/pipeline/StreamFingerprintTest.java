@@ -29,17 +29,18 @@ class StreamFingerprintTest {
     @Test
     void chunksOfAnySizeThroughAReusedBufferGiveTheDigestOfTheWhole() throws Exception {
         Random random = new Random(7);
-        byte[] data = new byte[12_000_000];
+        byte[] data = new byte[24_000_000];
         random.nextBytes(data);
         StreamFingerprint f = new StreamFingerprint();
         // the caller refills one buffer after every call, as a buffered reader does: the fingerprint must copy
-        byte[] buffer = new byte[1 << 18];
+        byte[] buffer = new byte[3 << 20];
         int at = 0;
         while (at < data.length) {
-            int size = switch (random.nextInt(4)) {
+            int size = switch (random.nextInt(5)) {
                 case 0 -> 1 << 16; // the usual read
                 case 1 -> 1 + random.nextInt(1 << 16);
-                case 2 -> (1 << 16) + 1 + random.nextInt(1 << 17); // larger than the reused buffers
+                case 2 -> 1 << 20; // as large as the fingerprint's buffers
+                case 3 -> (1 << 20) + 1 + random.nextInt(2 << 20); // larger: spread over several
                 default -> 1 + random.nextInt(100);
             };
             int length = Math.min(size, data.length - at);
@@ -64,7 +65,7 @@ class StreamFingerprintTest {
         byte[] chunk = new byte[1 << 16];
         new Random(3).nextBytes(chunk);
         MessageDigest whole = MessageDigest.getInstance("SHA-256");
-        for (int i = 0; i < 100; i++) { // more chunks than the queue holds
+        for (int i = 0; i < 200; i++) { // more bytes than the queue holds
             f.consumed(chunk, 0, chunk.length);
             whole.update(chunk);
         }
