@@ -28,9 +28,10 @@ import java.util.concurrent.FutureTask;
  * most {@link #PLOTTED} records, and fixed-size histograms.
  *
  * <p>Plots are drawn on a thread of the report's own as the records come in, so the last record's plot is drawn
- * while its GFF3 is written rather than after; that thread first draws a small throwaway report, which loads and
- * first runs the report's code while the input is read (reading a long record leaves a core idle). Close the
- * report to end the thread.
+ * while its GFF3 is written rather than after. Before the first plot that thread draws a small throwaway report,
+ * which loads and first runs all of the report's code there rather than at the end of the run. It starts with the
+ * first record, not before: while the input is read, the other core is busy compiling the reader. Close the report
+ * to end the thread.
  *
  * <p>Colours: the Okabe-Ito palette, chosen to stay distinct under the common colour-vision deficiencies (Okabe
  * &amp; Ito 2008, "Color Universal Design", jfly.uni-koeln.de/color/). Flags are words, never colour alone.
@@ -59,7 +60,7 @@ public final class HtmlReport implements AutoCloseable {
     private final List<Drawn> plots = new ArrayList<>();
     /** Draws the plots; null to draw them on the caller's thread (the throwaway report). */
     private final ExecutorService drawing;
-    private final Future<?> warmUp;
+    private Future<?> warmUp;
     private final Histogram lengths = Histogram.logarithmic(1, 1e7, 28);
     private final Histogram confidences = Histogram.linear(0, 1, 20);
 
@@ -86,15 +87,11 @@ public final class HtmlReport implements AutoCloseable {
         this.model = model;
         this.labels = model.reportedLabels().stream().map(Label::name).toList();
         this.drawing = drawing;
-        this.warmUp = drawing == null ? null : drawing.submit(() -> {
-            drawThrowaway(model);
-            return null;
-        });
     }
 
     /**
      * Draws a report of one short invented record to nowhere: the classes and first runs it costs are then paid on
-     * the drawing thread early in the run, not at its end.
+     * the drawing thread, not at the end of the run.
      */
     private static void drawThrowaway(HmmModel model) throws IOException {
         HtmlReport throwaway = new HtmlReport(model, null);
@@ -147,6 +144,12 @@ public final class HtmlReport implements AutoCloseable {
             if (drawing == null) {
                 svg.run();
             } else {
+                if (warmUp == null) {
+                    warmUp = drawing.submit(() -> {
+                        drawThrowaway(model);
+                        return null;
+                    });
+                }
                 drawing.execute(svg);
             }
             plots.add(new Drawn(a.seqid(), svg));
@@ -164,7 +167,7 @@ public final class HtmlReport implements AutoCloseable {
     public void write(Writer out, List<InputFingerprint> inputs, String inputName, String options, String version,
                       String date, double seconds, String caution) throws IOException {
         if (warmUp != null) {
-            done(warmUp); // long finished; a failure there is a fault to show, not to hide
+            done(warmUp); // finished before the first plot; a failure there is a fault to show, not to hide
         }
         Xml x = new Xml(out);
         out.write("<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n<!DOCTYPE html>\n");
