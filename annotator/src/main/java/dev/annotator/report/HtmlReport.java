@@ -1,6 +1,5 @@
 package dev.annotator.report;
 
-import dev.annotator.decode.Composition;
 import dev.annotator.decode.PosteriorPlot;
 import dev.annotator.decode.RecordAnnotation;
 import dev.annotator.decode.RecordProfile;
@@ -28,10 +27,7 @@ import java.util.concurrent.FutureTask;
  * most {@link #PLOTTED} records, and fixed-size histograms.
  *
  * <p>Plots are drawn on a thread of the report's own as the records come in, so the last record's plot is drawn
- * while its GFF3 is written rather than after. Before the first plot that thread draws a small throwaway report,
- * which loads and first runs all of the report's code there rather than at the end of the run. It starts with the
- * first record, not before: while the input is read, the other core is busy compiling the reader. Close the report
- * to end the thread.
+ * while its GFF3 is written rather than after. Close the report to end the thread.
  *
  * <p>Colours: the Okabe-Ito palette, chosen to stay distinct under the common colour-vision deficiencies (Okabe
  * &amp; Ito 2008, "Color Universal Design", jfly.uni-koeln.de/color/). Flags are words, never colour alone.
@@ -58,9 +54,7 @@ public final class HtmlReport implements AutoCloseable {
     private final List<String> labels;
     private final List<Row> rows = new ArrayList<>();
     private final List<Drawn> plots = new ArrayList<>();
-    /** Draws the plots; null to draw them on the caller's thread (the throwaway report). */
     private final ExecutorService drawing;
-    private Future<?> warmUp;
     private final Histogram lengths = Histogram.logarithmic(1, 1e7, 28);
     private final Histogram confidences = Histogram.linear(0, 1, 20);
 
@@ -76,33 +70,13 @@ public final class HtmlReport implements AutoCloseable {
     }
 
     public HtmlReport(HmmModel model) {
-        this(model, Executors.newSingleThreadExecutor(task -> {
+        this.model = model;
+        this.labels = model.reportedLabels().stream().map(Label::name).toList();
+        this.drawing = Executors.newSingleThreadExecutor(task -> {
             Thread t = new Thread(task, "report-drawing");
             t.setDaemon(true);
             return t;
-        }));
-    }
-
-    private HtmlReport(HmmModel model, ExecutorService drawing) {
-        this.model = model;
-        this.labels = model.reportedLabels().stream().map(Label::name).toList();
-        this.drawing = drawing;
-    }
-
-    /**
-     * Draws a report of one short invented record to nowhere: the classes and first runs it costs are then paid on
-     * the drawing thread, not at the end of the run.
-     */
-    private static void drawThrowaway(HmmModel model) throws IOException {
-        HtmlReport throwaway = new HtmlReport(model, null);
-        String label = throwaway.labels.get(0);
-        float[] bins = {0.25f, 0.75f};
-        RecordProfile profile = new RecordProfile(label, null, new Composition(0.5, 0.5), 0, 0, null,
-                new PosteriorPlot(2, bins, bins, bins));
-        Segment segment = new Segment(label, 2, 3, 0.75, 0.5, 1, null);
-        throwaway.record(new RecordAnnotation("throwaway", 4, 0, List.of(segment), profile));
-        throwaway.write(Writer.nullWriter(), List.of(new InputFingerprint("throwaway.fa", 4, "0")), "throwaway.fa",
-                "annotate", "0", java.time.OffsetDateTime.now().withNano(0).toString(), 0, "");
+        });
     }
 
     /** Takes one finished record (with a profile holding composition and a plot). */
@@ -141,17 +115,7 @@ public final class HtmlReport implements AutoCloseable {
                 RecordPlot.draw(b, plotted);
                 return b.toString();
             });
-            if (drawing == null) {
-                svg.run();
-            } else {
-                if (warmUp == null) {
-                    warmUp = drawing.submit(() -> {
-                        drawThrowaway(model);
-                        return null;
-                    });
-                }
-                drawing.execute(svg);
-            }
+            drawing.execute(svg);
             plots.add(new Drawn(a.seqid(), svg));
         }
     }
@@ -166,9 +130,6 @@ public final class HtmlReport implements AutoCloseable {
      */
     public void write(Writer out, List<InputFingerprint> inputs, String inputName, String options, String version,
                       String date, double seconds, String caution) throws IOException {
-        if (warmUp != null) {
-            done(warmUp); // finished before the first plot; a failure there is a fault to show, not to hide
-        }
         Xml x = new Xml(out);
         out.write("<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n<!DOCTYPE html>\n");
         x.open("html", "xmlns", "http://www.w3.org/1999/xhtml", "lang", "en");
@@ -222,9 +183,7 @@ public final class HtmlReport implements AutoCloseable {
     /** Ends the drawing thread (plots not yet drawn are dropped). */
     @Override
     public void close() {
-        if (drawing != null) {
-            drawing.shutdownNow();
-        }
+        drawing.shutdownNow();
     }
 
     /** The result of work on the drawing thread, with its failure as this thread's. */
