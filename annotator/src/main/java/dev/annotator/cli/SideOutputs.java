@@ -142,6 +142,9 @@ final class SideOutputs implements AutoCloseable {
 
     @Override
     public void close() {
+        if (report != null) {
+            report.close();
+        }
         for (OutputTarget t : targets) {
             t.close();
         }

@@ -8,8 +8,8 @@ import java.util.List;
 /**
  * Posterior decoding: for each reported label, the maximal runs of bases where the label's posterior exceeds
  * 0.5. Fed by the backward pass (blocks arrive last to first), so runs are opened at their end and closed at
- * their start; nothing per base is stored. A run still open at the start of the decoded range is closed there;
- * {@link WindowStitcher} joins runs cut by window boundaries.
+ * their start; nothing per base is kept beyond the current block. A run still open at the start of the decoded
+ * range is closed there; {@link WindowStitcher} joins runs cut by window boundaries.
  */
 final class PosteriorRuns implements PosteriorBlockSink {
     private final ReportedLabels labels;
@@ -20,6 +20,8 @@ final class PosteriorRuns implements PosteriorBlockSink {
     private final List<RawSegment> closed = new ArrayList<>();
     private int plotLabel = -1;
     private WindowProfile plot;
+    /** A label of several states: its posterior of the current block's bases, handed to the plot after the block. */
+    private double[] plotScratch;
 
     PosteriorRuns(ReportedLabels labels, int rangeStart, int stateCount) {
         this.labels = labels;
@@ -29,7 +31,7 @@ final class PosteriorRuns implements PosteriorBlockSink {
         this.openEnd = new int[labels.size()];
     }
 
-    /** Also hands every base's posterior of one label to a plot, in the descending order the runs see them. */
+    /** Also hands every base's posterior of one label to a plot, block by block as the runs see them. */
     void feedPlot(int label, WindowProfile plot) {
         this.plotLabel = label;
         this.plot = plot;
@@ -40,12 +42,15 @@ final class PosteriorRuns implements PosteriorBlockSink {
         boolean[][] masks = labels.stateMasks();
         for (int r = 0; r < open.length; r++) {
             boolean[] mask = masks[r];
-            WindowProfile plotted = r == plotLabel ? plot : null;
+            // a one-state label's posterior is read from the posterior rows; a label of several states is summed
+            // per base below and kept for the plot
+            boolean plotted = r == plotLabel;
+            double[] values = plotted && plot.plottedState() < 0 ? plotValues(end - start) : null;
             for (int t = end - 1; t >= start; t--) {
                 int off = (t - start) * stateCount;
                 double p = SegmentAccumulator.labelPosterior(mask, posterior, off);
-                if (plotted != null) {
-                    plotted.plotBase(t, p);
+                if (values != null) {
+                    values[t - start] = p;
                 }
                 if (p > 0.5) {
                     if (open[r] == null) {
@@ -60,7 +65,19 @@ final class PosteriorRuns implements PosteriorBlockSink {
             if (start == rangeStart && open[r] != null) {
                 close(r, rangeStart);
             }
+            if (values != null) {
+                plot.plotValues(start, end, values, 1, 0);
+            } else if (plotted) {
+                plot.plotValues(start, end, posterior, stateCount, plot.plottedState());
+            }
         }
+    }
+
+    private double[] plotValues(int length) {
+        if (plotScratch == null || plotScratch.length < length) {
+            plotScratch = new double[length];
+        }
+        return plotScratch;
     }
 
     private void close(int label, int start0) {

@@ -44,7 +44,8 @@ public final class AnnotationPipeline {
      * @param gff        where the GFF3 goes; flushed, not closed
      * @param outputName how to name the output in error messages
      * @param warnings   receives one-line warnings (skipped empty records)
-     * @param progress   receives each finished record (for progress display); may ignore it
+     * @param progress   receives each finished record in input order, before its GFF3 lines are written (side
+     *                   outputs, progress display); may ignore it
      */
     public RunSummary run(String input, InputStream stdin, Writer gff, String outputName, Consumer<String> warnings,
                           Consumer<RecordAnnotation> progress) {
@@ -63,6 +64,9 @@ public final class AnnotationPipeline {
         long[] bases = {0};
         int[] counts = {0, 0};
         Consumer<RecordAnnotation> sink = annotation -> {
+            // the caller's consumer first: side outputs that work on threads of their own (the report draws its
+            // plots) then run beside the writing of this record's GFF3
+            progress.accept(annotation);
             try {
                 writer.writeSequenceRegion(annotation.seqid(), annotation.length());
                 for (Gff3Feature f : features.called(annotation, ids)) {
@@ -74,7 +78,6 @@ public final class AnnotationPipeline {
             bases[0] += annotation.length();
             counts[0]++;
             counts[1] += annotation.segments().size();
-            progress.accept(annotation);
         };
         ProgressTracker tracker = reporter == null ? null : new ProgressTracker(reporter, inputSize(input));
         // a report names its input by SHA-256, taken from the bytes as they are parsed: one pass over the input

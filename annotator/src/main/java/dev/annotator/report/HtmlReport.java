@@ -9,22 +9,30 @@ import dev.annotator.model.InputFingerprint;
 import dev.annotator.model.Label;
 
 import java.io.IOException;
+import java.io.InterruptedIOException;
 import java.io.Writer;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Locale;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.concurrent.FutureTask;
 
 /**
  * A self-contained HTML report of one annotation run, collected record by record as the records are done and
  * written at the end: run summary, a sortable table of records with flags in words, a posterior plot of each of
  * the first {@link #PLOTTED} records (inline SVG drawn here), and histograms of segment length and confidence.
- * The markup is well-formed XHTML, so XML tools read it. Memory: one table row per record, plot data of at most
- * {@link #PLOTTED} records (their bins and segments), and fixed-size histograms.
+ * The markup is well-formed XHTML, so XML tools read it. Memory: one table row per record, the drawn plots of at
+ * most {@link #PLOTTED} records, and fixed-size histograms.
+ *
+ * <p>Plots are drawn on a thread of the report's own as the records come in, so the last record's plot is drawn
+ * while its GFF3 is written rather than after. Close the report to end the thread.
  *
  * <p>Colours: the Okabe-Ito palette, chosen to stay distinct under the common colour-vision deficiencies (Okabe
  * &amp; Ito 2008, "Color Universal Design", jfly.uni-koeln.de/color/). Flags are words, never colour alone.
  */
-public final class HtmlReport {
+public final class HtmlReport implements AutoCloseable {
     /** Records drawn; later records appear in the table only. */
     public static final int PLOTTED = 50;
     /**
@@ -45,7 +53,8 @@ public final class HtmlReport {
     private final HmmModel model;
     private final List<String> labels;
     private final List<Row> rows = new ArrayList<>();
-    private final List<Plotted> plots = new ArrayList<>();
+    private final List<Drawn> plots = new ArrayList<>();
+    private final ExecutorService drawing;
     private final Histogram lengths = Histogram.logarithmic(1, 1e7, 28);
     private final Histogram confidences = Histogram.linear(0, 1, 20);
 
@@ -56,9 +65,18 @@ public final class HtmlReport {
     record Plotted(String seqid, int length, PosteriorPlot plot, List<Segment> segments, String label) {
     }
 
+    /** A plot being drawn: its record's name and the plot's markup. */
+    private record Drawn(String seqid, Future<String> svg) {
+    }
+
     public HtmlReport(HmmModel model) {
         this.model = model;
         this.labels = model.reportedLabels().stream().map(Label::name).toList();
+        this.drawing = Executors.newSingleThreadExecutor(task -> {
+            Thread t = new Thread(task, "report-drawing");
+            t.setDaemon(true);
+            return t;
+        });
     }
 
     /** Takes one finished record (with a profile holding composition and a plot). */
@@ -91,7 +109,14 @@ public final class HtmlReport {
                 p.ambiguousBases(), counts, covered, a.segments().isEmpty() ? Double.NaN : sum / a.segments().size(),
                 flags));
         if (plots.size() < PLOTTED && p.plot() != null) {
-            plots.add(new Plotted(a.seqid(), a.length(), p.plot(), a.segments(), p.trackLabel()));
+            Plotted plotted = new Plotted(a.seqid(), a.length(), p.plot(), a.segments(), p.trackLabel());
+            FutureTask<String> svg = new FutureTask<>(() -> {
+                StringBuilder b = new StringBuilder(4096 + 256 * plotted.segments().size());
+                RecordPlot.draw(b, plotted);
+                return b.toString();
+            });
+            drawing.execute(svg);
+            plots.add(new Drawn(a.seqid(), svg));
         }
     }
 
@@ -131,7 +156,7 @@ public final class HtmlReport {
         runRow(x, "command", options);
         runRow(x, "tool", "annotator " + version);
         runRow(x, "date", date);
-        runRow(x, "runtime", String.format(Locale.ROOT, "%.2f s", seconds));
+        runRow(x, "runtime", Axis.fixed(seconds, 2) + " s");
         long total = rows.stream().mapToLong(Row::length).sum();
         runRow(x, "records", rows.size() + " (" + Axis.bases(total) + ")");
         x.close("table");
@@ -140,9 +165,9 @@ public final class HtmlReport {
         if (rows.size() > plots.size()) {
             x.element("p", "The first " + plots.size() + " of " + rows.size() + " records are drawn.");
         }
-        for (Plotted p : plots) {
+        for (Drawn p : plots) {
             x.element("h3", p.seqid());
-            RecordPlot.draw(x, p);
+            out.write(done(p.svg()));
         }
         x.element("h2", "Segments across the run");
         Histograms.draw(x, lengths, "Segment length", true);
@@ -153,6 +178,33 @@ public final class HtmlReport {
         x.close("body");
         x.close("html");
         out.write("\n");
+    }
+
+    /** Ends the drawing thread (plots not yet drawn are dropped). */
+    @Override
+    public void close() {
+        drawing.shutdownNow();
+    }
+
+    /** The result of work on the drawing thread, with its failure as this thread's. */
+    private static <T> T done(Future<T> work) throws IOException {
+        try {
+            return work.get();
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new InterruptedIOException("interrupted while drawing the report");
+        } catch (ExecutionException e) {
+            if (e.getCause() instanceof IOException io) {
+                throw io;
+            }
+            if (e.getCause() instanceof RuntimeException re) {
+                throw re;
+            }
+            if (e.getCause() instanceof Error err) {
+                throw err;
+            }
+            throw new IllegalStateException(e.getCause());
+        }
     }
 
     private static void runRow(Xml x, String key, String value) throws IOException {

@@ -23,7 +23,13 @@ final class RecordPlot {
     private RecordPlot() {
     }
 
-    static void draw(Xml x, HtmlReport.Plotted p) throws IOException {
+    /**
+     * Draws into {@code out}. The fixed parts go through {@link Xml}; the parts repeated per bin and per segment are
+     * appended directly (numbers need no escaping, labels are escaped once), which made drawing several times
+     * cheaper in a cold process, where such code runs interpreted for its first thousands of rounds.
+     */
+    static void draw(StringBuilder out, HtmlReport.Plotted p) throws IOException {
+        Xml x = new Xml(out);
         PosteriorPlot plot = p.plot();
         double length = p.length();
         x.open("svg", "xmlns", "http://www.w3.org/2000/svg", "width", Integer.toString(WIDTH), "height",
@@ -51,39 +57,50 @@ final class RecordPlot {
                 "rotate(-90 14 " + num((TOP + BOTTOM) / 2.0) + ")", "text-anchor", "middle");
         x.element("text", "GC", "x", str(RIGHT + 36), "y", num((TOP + BOTTOM) / 2.0));
         // mean (shaded area), maximum (line), GC (dashed line)
-        StringBuilder area = new StringBuilder().append(LEFT).append(',').append(BOTTOM);
-        StringBuilder max = new StringBuilder();
-        StringBuilder gc = new StringBuilder();
+        StringBuilder area = new StringBuilder(16 * plot.bins() + 32).append(LEFT).append(',').append(BOTTOM);
+        StringBuilder max = new StringBuilder(16 * plot.bins());
+        StringBuilder gc = new StringBuilder(16 * plot.bins());
         for (int b = 0; b < plot.bins(); b++) {
-            double mid = Math.min(length, (b + 0.5) * plot.binSize());
-            String xs = num(xOf(mid, length));
-            area.append(' ').append(xs).append(',').append(num(yOf(plot.mean()[b])));
-            max.append(xs).append(',').append(num(yOf(plot.max()[b]))).append(' ');
+            double xs = xOf(Math.min(length, (b + 0.5) * plot.binSize()), length);
+            appendNum(appendNum(area.append(' '), xs).append(','), yOf(plot.mean()[b]));
+            appendNum(appendNum(max, xs).append(','), yOf(plot.max()[b])).append(' ');
             if (Float.isFinite(plot.gc()[b])) {
-                gc.append(xs).append(',').append(num(yOf(plot.gc()[b]))).append(' ');
+                appendNum(appendNum(gc, xs).append(','), yOf(plot.gc()[b])).append(' ');
             }
         }
         area.append(' ').append(RIGHT).append(',').append(BOTTOM);
-        x.element("polygon", "", "points", area.toString(), "fill", HtmlReport.BLUE, "fill-opacity", "0.25",
-                "stroke", "none");
-        x.element("polyline", "", "points", max.toString().trim(), "fill", "none", "stroke", HtmlReport.BLUE,
-                "stroke-width", "1.5");
+        trimEnd(max);
+        trimEnd(gc);
+        // point lists hold digits, commas, points and spaces only: nothing to escape
+        out.append("<polygon points=\"").append(area).append("\" fill=\"").append(HtmlReport.BLUE)
+                .append("\" fill-opacity=\"0.25\" stroke=\"none\"/>");
+        out.append("<polyline points=\"").append(max).append("\" fill=\"none\" stroke=\"").append(HtmlReport.BLUE)
+                .append("\" stroke-width=\"1.5\"/>");
         if (gc.length() > 0) {
-            x.element("polyline", "", "points", gc.toString().trim(), "fill", "none", "stroke", HtmlReport.ORANGE,
-                    "stroke-width", "1", "stroke-dasharray", "4 2");
+            out.append("<polyline points=\"").append(gc).append("\" fill=\"none\" stroke=\"")
+                    .append(HtmlReport.ORANGE).append("\" stroke-width=\"1\" stroke-dasharray=\"4 2\"/>");
         }
         // segments
         x.element("text", "segments", "x", str(LEFT - 6), "y", str(BAR_TOP + 12), "text-anchor", "end");
+        String label = null;
+        String escapedLabel = null;
         for (Segment s : p.segments()) {
+            if (!s.label().equals(label)) {
+                label = s.label();
+                escapedLabel = Xml.escaped(label);
+            }
             double x0 = xOf(s.start() - 1, length);
             double width = Math.max(1, xOf(s.end(), length) - x0);
-            x.open("rect", "class", "segment", "data-label", s.label(), "data-start", Integer.toString(s.start()),
-                    "data-end", Integer.toString(s.end()), "data-confidence", Axis.fixed(s.meanPosterior(), 3),
-                    "x", num(x0), "y", str(BAR_TOP), "width", num(width), "height", str(BAR_HEIGHT),
-                    "fill", HtmlReport.colour(0), "fill-opacity", Axis.fixed(0.25 + 0.75 * s.meanPosterior(), 2));
-            x.element("title", s.label() + " " + s.start() + "-" + s.end() + ", confidence "
-                    + Axis.fixed(s.meanPosterior(), 3));
-            x.close("rect");
+            out.append("<rect class=\"segment\" data-label=\"").append(escapedLabel)
+                    .append("\" data-start=\"").append(s.start()).append("\" data-end=\"").append(s.end())
+                    .append("\" data-confidence=\"");
+            Axis.appendFixed(out, s.meanPosterior(), 3).append("\" x=\"");
+            appendNum(out, x0).append("\" y=\"").append(BAR_TOP).append("\" width=\"");
+            appendNum(out, width).append("\" height=\"").append(BAR_HEIGHT).append("\" fill=\"")
+                    .append(HtmlReport.colour(0)).append("\" fill-opacity=\"");
+            Axis.appendFixed(out, 0.25 + 0.75 * s.meanPosterior(), 2).append("\"><title>").append(escapedLabel)
+                    .append(' ').append(s.start()).append('-').append(s.end()).append(", confidence ");
+            Axis.appendFixed(out, s.meanPosterior(), 3).append("</title></rect>\n");
         }
         // x axis
         double step = Axis.step(length, 8);
@@ -111,9 +128,26 @@ final class RecordPlot {
      * thousands of coordinates, and formatting them was most of the report's cost on a cold start.
      */
     static String num(double v) {
+        return appendNum(new StringBuilder(8), v).toString();
+    }
+
+    /** Appends {@link #num}{@code (v)} to {@code b}. */
+    static StringBuilder appendNum(StringBuilder b, double v) {
         long tenths = Math.round(v * 10);
-        long whole = Math.abs(tenths) / 10;
-        return (tenths < 0 ? "-" : "") + whole + "." + Math.abs(tenths) % 10;
+        if (tenths < 0) {
+            b.append('-');
+        }
+        long abs = Math.abs(tenths);
+        return b.append(abs / 10).append('.').append((char) ('0' + abs % 10));
+    }
+
+    /** Drops trailing spaces. */
+    private static void trimEnd(StringBuilder b) {
+        int end = b.length();
+        while (end > 0 && b.charAt(end - 1) == ' ') {
+            end--;
+        }
+        b.setLength(end);
     }
 
     static String str(int v) {
