@@ -86,7 +86,10 @@ public final class AnnotationPipeline {
                 : fingerprint == null ? tracker : tracker.andThen(fingerprint);
         MemoryBudget budget = MemoryBudget.ofThisJvm(model.stateCount(), model.reportedLabels().size(),
                 options.method(), annotator.pathsAtOnce());
-        try (SequenceReader reader = SequenceFiles.open(input, stdin, warnings, budget.recordLimit(), observer);
+        // with a second thread allowed, gzip input is inflated on it while the first parses (a long record's read
+        // is otherwise the one stretch that leaves a core idle)
+        try (SequenceReader reader = SequenceFiles.open(input, stdin, warnings, budget.recordLimit(), observer,
+                options.threads() > 1);
              OrderedParallelMap<SequenceRecord, RecordAnnotation> map = new OrderedParallelMap<>(options.threads(),
                      r -> decode(r, inputName, tracker), sink, SequenceRecord::length, budget.basesInFlight())) {
             writer.writeHeader();
