@@ -108,7 +108,8 @@ final class SideOutputs implements AutoCloseable {
         try {
             Writer w = new BufferedWriter(reportTarget.writer(), 1 << 16);
             report.write(w, inputs, inputName, command, VersionProvider.version(),
-                    java.time.OffsetDateTime.now().withNano(0).toString(), seconds, Caution.TEXT);
+                    java.time.format.DateTimeFormatter.ISO_OFFSET_DATE_TIME.format(java.time.OffsetDateTime.now().withNano(0)),
+                    seconds, Caution.TEXT);
             w.flush();
         } catch (IOException e) {
             throw failed(reportTarget, e);
