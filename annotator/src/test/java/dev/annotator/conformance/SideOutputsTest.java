@@ -226,6 +226,8 @@ class SideOutputsTest {
         // the XHTML and SVG namespace names are identifiers, never fetched; no other address may appear
         assertThat(html.replace("http://www.w3.org/1999/xhtml", "").replace("http://www.w3.org/2000/svg", ""))
                 .doesNotContain("http");
+        // the run's date in ISO 8601 extended form with seconds, also on the whole minute (ISO 8601:2004 5.4.1)
+        assertThat(html).containsPattern("\\d{4}-\\d\\d-\\d\\dT\\d\\d:\\d\\d:\\d\\d(Z|[+-]\\d\\d:\\d\\d)");
         // the records table: composition recounted from the FASTA (Gardiner-Garden & Frommer 1987 definitions)
         org.w3c.dom.NodeList trs = doc.getElementsByTagNameNS("http://www.w3.org/1999/xhtml", "tr");
         int checked = 0;
