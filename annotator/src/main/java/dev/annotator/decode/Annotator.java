@@ -302,6 +302,33 @@ public final class Annotator {
         return forwardBackward.logLikelihood(bases);
     }
 
+    /**
+     * Bytes per base that the state paths of one call hold at once: back-pointers (Viterbi one per state,
+     * posterior-Viterbi one per state with several successors) and the path itself; 0 for posterior decoding.
+     */
+    public long pathBytesPerBase() {
+        if (strandViews != null) {
+            return strandViews.stream().mapToLong(Annotator::pathBytesPerBase).sum();
+        }
+        return switch (method) {
+            case POSTERIOR -> 0;
+            case VITERBI -> parameters.stateCount() + 1L;
+            case POSTERIOR_VITERBI -> posteriorViterbi.backPointerBytesPerBase() + 1L;
+        };
+    }
+
+    /** Back-pointer bytes per base of the widest single back-pointer table (one Java array); 0 without one. */
+    public int widestBackPointerRow() {
+        if (strandViews != null) {
+            return strandViews.stream().mapToInt(Annotator::widestBackPointerRow).max().orElse(0);
+        }
+        return switch (method) {
+            case POSTERIOR -> 0;
+            case VITERBI -> parameters.stateCount();
+            case POSTERIOR_VITERBI -> posteriorViterbi.backPointerBytesPerBase();
+        };
+    }
+
     /** How many state paths of a record's length one call holds at once (2 for a gene model's strand views). */
     public int pathsAtOnce() {
         return strandViews == null ? 1 : strandViews.size();

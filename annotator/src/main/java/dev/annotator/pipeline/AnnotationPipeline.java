@@ -84,8 +84,8 @@ public final class AnnotationPipeline {
         StreamFingerprint fingerprint = options.profile().plotPoints() > 0 ? new StreamFingerprint() : null;
         dev.annotator.io.RawInputObserver observer = tracker == null ? fingerprint
                 : fingerprint == null ? tracker : tracker.andThen(fingerprint);
-        MemoryBudget budget = MemoryBudget.ofThisJvm(model.stateCount(), model.reportedLabels().size(),
-                options.method(), annotator.pathsAtOnce());
+        MemoryBudget budget = MemoryBudget.ofThisJvm(annotator.pathBytesPerBase(), annotator.widestBackPointerRow(),
+                model.reportedLabels().size(), options.method(), annotator.pathsAtOnce());
         // with a second thread allowed, gzip input is inflated on it while the first parses (a long record's read
         // is otherwise the one stretch that leaves a core idle)
         try (SequenceReader reader = SequenceFiles.open(input, stdin, warnings, budget.recordLimit(), observer,

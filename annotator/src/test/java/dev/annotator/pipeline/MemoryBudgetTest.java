@@ -29,6 +29,16 @@ class MemoryBudgetTest {
     }
 
     @Test
+    void pathsHeldAtOnceAddTheirBytesAndEachItsEvidence() {
+        // two paths (a gene model's strand views) of 7 and 19 path bytes per base, three labels
+        MemoryBudget b = MemoryBudget.of(1000 * MIB, 26, 18, 3, DecodeMethod.POSTERIOR_VITERBI, 2);
+        assertThat(b.recordLimit().bases()).isEqualTo(1000 * MIB / 100 * 80 / (4 + 1 + 26 + 2 * 3 * 16));
+        // the widest table alone bounds the length: 18 bytes per base in one array
+        assertThat(MemoryBudget.of(1L << 50, 26, 18, 3, DecodeMethod.POSTERIOR_VITERBI, 2).recordLimit().bases())
+                .isEqualTo(RecordLengthLimit.ARRAY_MAX / 18);
+    }
+
+    @Test
     void neverMoreThanAnArrayHoldsNorLessThanOneBase() {
         assertThat(MemoryBudget.of(1L << 50, 2, 1, DecodeMethod.POSTERIOR).recordLimit().bases())
                 .isEqualTo(RecordLengthLimit.ARRAY_MAX);
