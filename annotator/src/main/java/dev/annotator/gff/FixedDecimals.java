@@ -1,6 +1,6 @@
 package dev.annotator.gff;
 
-import java.util.Locale;
+import dev.annotator.text.FixedPoint;
 
 /** Fixed-point numbers for GFF3 text: locale-independent, and never "-0.000" for values that round to zero. */
 final class FixedDecimals {
@@ -8,7 +8,7 @@ final class FixedDecimals {
     }
 
     static String format(double value, int decimals) {
-        String s = String.format(Locale.ROOT, "%." + decimals + "f", value);
+        String s = FixedPoint.format(value, decimals);
         if (s.charAt(0) == '-' && isZero(s)) {
             return s.substring(1);
         }
