@@ -18,6 +18,9 @@ final class InflateAheadInputStream extends InputStream {
     /** Full buffers waiting for the reader; with the one being filled and the one being read, the memory held. */
     static final int QUEUED = 2;
 
+    /** How long {@link #close()} waits for the filling thread to end. */
+    static final long STOP_WAIT_MS = 1_000;
+
     private static final Object END = new Object();
 
     private final InputStream source;
@@ -151,6 +154,11 @@ final class InflateAheadInputStream extends InputStream {
         return current == null ? 0 : limit - position;
     }
 
+    /**
+     * Stops the filling thread and closes the source. Waits (up to {@link #STOP_WAIT_MS} ms) for the thread to end,
+     * so that the source's observers are not called after the caller has moved on: a file read is interrupted at
+     * once; only a blocking read of a pipe can outlast the wait.
+     */
     @Override
     public void close() throws IOException {
         if (closed) {
@@ -159,6 +167,14 @@ final class InflateAheadInputStream extends InputStream {
         closed = true;
         filler.interrupt();
         full.clear(); // a filler waiting to hand over a buffer gets its interrupt, or room to finish its put
-        source.close();
+        try {
+            source.close();
+        } finally {
+            try {
+                filler.join(STOP_WAIT_MS);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+            }
+        }
     }
 }
