@@ -180,36 +180,24 @@ public final class Annotator {
             for (int w = 0; w < windows; w++) {
                 tasks.add(new WindowTask(bases, w * window, (int) Math.min(n, (long) (w + 1) * window), progress));
             }
-            // the bases' share of the profile (one pass over the record) runs beside the windows
-            RecursiveTask<RecordProfiles.BaseProfile> fromBases = profile.any() ? new RecursiveTask<>() {
-                @Override
-                protected RecordProfiles.BaseProfile compute() {
-                    return RecordProfiles.bases(profile, bases);
-                }
-            } : null;
             if (windows > 1 && ForkJoinTask.inForkJoinPool()) {
-                List<ForkJoinTask<?>> all = new ArrayList<>(tasks);
-                if (fromBases != null) {
-                    all.add(fromBases);
-                }
-                ForkJoinTask.invokeAll(all);
+                ForkJoinTask.invokeAll(tasks);
             } else {
                 tasks.forEach(WindowTask::invoke);
-                if (fromBases != null) {
-                    fromBases.invoke();
-                }
             }
-            baseProfile = fromBases == null ? null : fromBases.join();
             raw = new ArrayList<>();
             logLik = 0;
             windowProfiles = profile.any() ? new ArrayList<>(windows) : null;
+            List<RecordProfiles.BasePiece> basePieces = new ArrayList<>(windows);
             for (WindowTask task : tasks) {
                 raw.addAll(task.join().segments());
                 logLik += task.logLikelihood;
                 if (windowProfiles != null) {
                     windowProfiles.add(task.profile);
+                    basePieces.add(task.basePiece);
                 }
             }
+            baseProfile = windowProfiles == null ? null : RecordProfiles.bases(profile, bases, basePieces);
             raw = WindowStitcher.stitch(raw);
         }
         List<Segment> segments = new ArrayList<>(raw.size());
@@ -351,6 +339,7 @@ public final class Annotator {
         private final LongConsumer progress;
         private double logLikelihood;
         private WindowProfile profile;
+        private RecordProfiles.BasePiece basePiece;
 
         WindowTask(byte[] bases, int start, int end, LongConsumer progress) {
             this.bases = bases;
@@ -379,6 +368,8 @@ public final class Annotator {
                 }
                 window.finish();
                 profile = window;
+                // the window's own bases for the composition and the plot's GC, so that pass is shared out too
+                basePiece = RecordProfiles.basePiece(Annotator.this.profile, bases, start, end);
             } else {
                 logLikelihood = forwardBackward.runRange(bases, start, end, before, last, runs);
             }

@@ -5,7 +5,9 @@ import dev.annotator.seq.BaseCode;
 /**
  * Running counts over a record read left to right in pieces: bases by kind, CpG pairs (counted across piece
  * boundaries too), ambiguous bases and the longest run of them. One pass gives the record's composition and each
- * plot bin's GC from the differences between snapshots.
+ * plot bin's GC from the differences between snapshots. Tallies of consecutive stretches, each started where the
+ * one before ends ({@link #startingAt}), join into the tally of the whole ({@link #append}), so the stretches can
+ * be counted at once on different threads.
  *
  * <p>The counts of A, C, G and T are packed into one long (16 bits each) and added with one table lookup per
  * base, flushed before a field can overflow; CpG pairs come from a table indexed by the previous and the current
@@ -22,8 +24,26 @@ final class BaseTally {
     private final long[] n = new long[5];
     private long cg;
     private int previousByte = -1;
+    private long added;
+    // ambiguous bases before the first unambiguous one, and whether every base so far was ambiguous
+    private long leading;
+    private boolean leadingOpen = true;
+    // ambiguous bases after the last unambiguous one (the run still open)
     private long run;
     private long longestRun;
+
+    BaseTally() {
+    }
+
+    /**
+     * An empty tally of a stretch starting at {@code from}: the base before it counts as the first half of a CpG
+     * pair, as in a tally that had added everything before.
+     */
+    static BaseTally startingAt(byte[] bases, int from) {
+        BaseTally tally = new BaseTally();
+        tally.previousByte = from > 0 ? bases[from - 1] & 0xFF : -1;
+        return tally;
+    }
 
     /** Adds {@code bases[from, to)}, which must follow what was added before. */
     void add(byte[] bases, int from, int to) {
@@ -52,9 +72,11 @@ final class BaseTally {
             if (other > 0) {
                 n[4] += other;
                 measureRuns(bases, chunk, end);
-            } else {
+            } else if (end > chunk) {
                 run = 0;
+                leadingOpen = false;
             }
+            added += end - chunk;
         }
         cg += pairs;
         if (to > from) {
@@ -70,8 +92,40 @@ final class BaseTally {
             r = x >= 0 && x < 4 ? 0 : r + 1;
             longest = Math.max(longest, r);
         }
+        if (leadingOpen) {
+            int i = from;
+            for (; i < to; i++) {
+                int x = CODE[bases[i] & 0xFF];
+                if (x >= 0 && x < 4) {
+                    break;
+                }
+            }
+            leading += i - from;
+            leadingOpen = i == to;
+        }
         run = r;
         longestRun = longest;
+    }
+
+    /**
+     * Adds the tally of the stretch that follows this one's, made by {@link #startingAt} its first base (so the
+     * CpG pair across the boundary is counted there, once); ambiguous runs that cross the boundary are joined.
+     */
+    void append(BaseTally next) {
+        for (int i = 0; i < n.length; i++) {
+            n[i] += next.n[i];
+        }
+        cg += next.cg;
+        longestRun = Math.max(Math.max(longestRun, next.longestRun), run + next.leading);
+        run = next.leadingOpen ? run + next.added : next.run;
+        if (leadingOpen) {
+            leading += next.leading;
+            leadingOpen = next.leadingOpen;
+        }
+        if (next.added > 0) {
+            previousByte = next.previousByte;
+        }
+        added += next.added;
     }
 
     long unambiguous() {

@@ -47,41 +47,75 @@ final class RecordProfiles {
     }
 
     /**
-     * The part of a profile that needs only the bases, so it can be computed while the record is decoded.
+     * What the bases [start, end) of a record give its profile, to be joined in order with the pieces beside it
+     * ({@link #bases(ProfileOptions, byte[], List)}): their tally, and the unambiguous and G/C bases in each plot
+     * bin they touch. Each decoding window counts its own stretch, so the pass over the bases is shared out among
+     * the threads like the decoding.
      */
-    static BaseProfile bases(ProfileOptions options, byte[] bases) {
+    record BasePiece(BaseTally tally, int firstBin, int[] clean, int[] gc) {
+    }
+
+    static BasePiece basePiece(ProfileOptions options, byte[] bases, int start, int end) {
         int n = bases.length;
-        Composition composition = null;
-        long ambiguous = 0;
-        int longestRun = 0;
+        BaseTally tally = BaseTally.startingAt(bases, start);
+        boolean plotting = options.plotPoints() > 0 && end > start;
+        if (!plotting) {
+            if (options.composition()) {
+                tally.add(bases, start, end);
+            }
+            return new BasePiece(tally, 0, new int[0], new int[0]);
+        }
+        int bin = PosteriorPlot.binSize(n, options.plotPoints());
+        int firstBin = start / bin;
+        int bins = (end - 1) / bin - firstBin + 1;
+        int[] clean = new int[bins];
+        int[] gc = new int[bins];
+        // one pass over the bases: each bin's counts are the differences between the running counts
+        for (int b = 0; b < bins; b++) {
+            long gcBefore = tally.gcCount();
+            long cleanBefore = tally.unambiguous();
+            int from = Math.max(start, (firstBin + b) * bin);
+            int to = (int) Math.min(end, (long) (firstBin + b + 1) * bin);
+            tally.add(bases, from, to);
+            clean[b] = (int) (tally.unambiguous() - cleanBefore);
+            gc[b] = (int) (tally.gcCount() - gcBefore);
+        }
+        return new BasePiece(tally, firstBin, clean, gc);
+    }
+
+    /** The profile's part from the bases, counted in one piece. */
+    static BaseProfile bases(ProfileOptions options, byte[] bases) {
+        return bases(options, bases, List.of(basePiece(options, bases, 0, bases.length)));
+    }
+
+    /** The profile's part from the bases, joined from pieces that cover the record in order. */
+    static BaseProfile bases(ProfileOptions options, byte[] bases, List<BasePiece> pieces) {
+        int n = bases.length;
         boolean plotting = options.plotPoints() > 0 && n > 0;
         int bin = plotting ? PosteriorPlot.binSize(n, options.plotPoints()) : 0;
         int bins = plotting ? (n - 1) / bin + 1 : 0;
-        float[] gc = new float[bins];
-        if (options.composition() || plotting) {
-            // one pass over the bases: the record's composition, and each bin's GC from the running counts
-            BaseTally tally = new BaseTally();
-            if (plotting) {
-                for (int b = 0; b < bins; b++) {
-                    long gcBefore = tally.gcCount();
-                    long basesBefore = tally.unambiguous();
-                    tally.add(bases, b * bin, Math.min(n, (b + 1) * bin));
-                    long clean = tally.unambiguous() - basesBefore;
-                    gc[b] = clean == 0 ? Float.NaN : (float) ((double) (tally.gcCount() - gcBefore) / clean);
-                }
-            } else {
-                tally.add(bases, 0, n);
-            }
-            if (plotting && bin < MIN_GC_WINDOW) {
-                gc = windowedGc(bases, bin, bins);
-            }
-            if (options.composition()) {
-                composition = tally.composition();
-                ambiguous = tally.ambiguous();
-                longestRun = (int) tally.longestAmbiguousRun();
+        BaseTally tally = new BaseTally();
+        long[] clean = new long[bins];
+        long[] gcCount = new long[bins];
+        for (BasePiece piece : pieces) {
+            tally.append(piece.tally());
+            for (int b = 0; b < piece.clean().length; b++) {
+                clean[piece.firstBin() + b] += piece.clean()[b];
+                gcCount[piece.firstBin() + b] += piece.gc()[b];
             }
         }
-        return new BaseProfile(composition, ambiguous, longestRun, gc);
+        float[] gc = new float[bins];
+        if (plotting && bin < MIN_GC_WINDOW) {
+            gc = windowedGc(bases, bin, bins);
+        } else {
+            for (int b = 0; b < bins; b++) {
+                gc[b] = clean[b] == 0 ? Float.NaN : (float) ((double) gcCount[b] / clean[b]);
+            }
+        }
+        if (!options.composition()) {
+            return new BaseProfile(null, 0, 0, gc);
+        }
+        return new BaseProfile(tally.composition(), tally.ambiguous(), (int) tally.longestAmbiguousRun(), gc);
     }
 
     static RecordProfile join(ProfileOptions options, ReportedLabels labels, int trackLabel, byte[] bases,
