@@ -181,7 +181,7 @@ final class AnnotateCommand implements Callable<Integer> {
         String label = trackLabel == null ? reported.get(0) : trackLabel;
         ProfileOptions profile = new ProfileOptions(label, trackStep, posteriorTrack != null,
                 summary != null || report != null, report != null ? HtmlReport.PLOT_POINTS : 0,
-                summary != null);
+                summary != null, HtmlReport.PLOTTED);
         List<InputFingerprint> fingerprints = new ArrayList<>();
         if (report != null) {
             if (Files.isRegularFile(Path.of(model))) {

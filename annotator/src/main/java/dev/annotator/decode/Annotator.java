@@ -151,7 +151,7 @@ public final class Annotator {
             BaseEvidence evidence = new BaseEvidence(labels, bases.length, k);
             WindowProfile whole = profile.any()
                     ? new WindowProfile(labels, trackLabel, profile, 0, bases.length, bases.length, k) : null;
-            PosteriorBlockSink sink = whole == null ? evidence : (s, e, p, em) -> {
+            PosteriorBlockSink sink = whole == null || !whole.perBase() ? evidence : (s, e, p, em) -> {
                 evidence.block(s, e, p, em);
                 whole.block(s, e, p, em);
             };
@@ -356,7 +356,9 @@ public final class Annotator {
             if (Annotator.this.profile.any()) {
                 WindowProfile window = new WindowProfile(labels, trackLabel, Annotator.this.profile, start, end,
                         bases.length, parameters.stateCount());
-                if (window.plotOnly()) {
+                if (!window.perBase()) {
+                    logLikelihood = forwardBackward.runRange(bases, start, end, before, last, runs);
+                } else if (window.plotOnly()) {
                     // the runs compute the label's posterior at every base anyway: they feed the plot as they go
                     runs.feedPlot(trackLabel, window);
                     logLikelihood = forwardBackward.runRange(bases, start, end, before, last, runs);

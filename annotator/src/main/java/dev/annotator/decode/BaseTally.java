@@ -60,10 +60,10 @@ final class BaseTally {
                 pairs += cpg[prev << 8 | b];
                 prev = b;
             }
-            long a = acc & 0xFFFF;
-            long c = (acc >>> 16) & 0xFFFF;
-            long g = (acc >>> 32) & 0xFFFF;
-            long t = (acc >>> 48) & 0xFFFF;
+            long a = a(acc);
+            long c = c(acc);
+            long g = g(acc);
+            long t = t(acc);
             n[0] += a;
             n[1] += c;
             n[2] += g;
@@ -82,6 +82,38 @@ final class BaseTally {
         if (to > from) {
             previousByte = bases[to - 1] & 0xFF;
         }
+    }
+
+    /**
+     * The counts of A, C, G and T in {@code bases[from, to)}, fewer than 65,536 bases, packed 16 bits each (read
+     * them with {@link #a} to {@link #t}).
+     */
+    static long packedCounts(byte[] bases, int from, int to) {
+        if (to - from > FLUSH) {
+            throw new IllegalArgumentException("at most " + FLUSH + " bases, got " + (to - from));
+        }
+        final long[] packed = PACKED;
+        long acc = 0;
+        for (int i = from; i < to; i++) {
+            acc += packed[bases[i] & 0xFF];
+        }
+        return acc;
+    }
+
+    static long a(long packed) {
+        return packed & 0xFFFF;
+    }
+
+    static long c(long packed) {
+        return (packed >>> 16) & 0xFFFF;
+    }
+
+    static long g(long packed) {
+        return (packed >>> 32) & 0xFFFF;
+    }
+
+    static long t(long packed) {
+        return (packed >>> 48) & 0xFFFF;
     }
 
     private void measureRuns(byte[] bases, int from, int to) {

@@ -21,23 +21,17 @@ final class RecordProfiles {
     /** GC of a {@link #MIN_GC_WINDOW}-base window centred on each bin (clipped at the record's ends). */
     private static float[] windowedGc(byte[] bases, int bin, int bins) {
         int n = bases.length;
-        // prefix counts of unambiguous and of G/C bases; only for short records (bins under 200 bp), so small
-        int[] clean = new int[n + 1];
-        int[] gcCount = new int[n + 1];
-        for (int i = 0; i < n; i++) {
-            int code = dev.annotator.seq.BaseCode.of(bases[i]);
-            boolean unambiguous = code >= 0 && code < 4;
-            clean[i + 1] = clean[i] + (unambiguous ? 1 : 0);
-            gcCount[i + 1] = gcCount[i] + (code == 1 || code == 2 ? 1 : 0);
-        }
+        // each window counted on its own: bins*200 bases at most, for records of under 200 x plot points bases
         float[] gc = new float[bins];
         for (int b = 0; b < bins; b++) {
             int centre = Math.min(n, b * bin + bin / 2);
             int from = Math.max(0, centre - MIN_GC_WINDOW / 2);
             int to = Math.min(n, from + MIN_GC_WINDOW);
             from = Math.max(0, to - MIN_GC_WINDOW);
-            int c = clean[to] - clean[from];
-            gc[b] = c == 0 ? Float.NaN : (float) (gcCount[to] - gcCount[from]) / c;
+            long packed = BaseTally.packedCounts(bases, from, to);
+            long strong = BaseTally.c(packed) + BaseTally.g(packed);
+            long clean = BaseTally.a(packed) + strong + BaseTally.t(packed);
+            gc[b] = clean == 0 ? Float.NaN : (float) strong / clean;
         }
         return gc;
     }
@@ -66,6 +60,12 @@ final class RecordProfiles {
             return new BasePiece(tally, 0, new int[0], new int[0]);
         }
         int bin = PosteriorPlot.binSize(n, options.plotPoints());
+        if (bin < MIN_GC_WINDOW) {
+            // the plot's GC then comes from windows around the bins (windowedGc), not from the bins' own counts,
+            // which in bins of a few bases would cost a call per few bases
+            tally.add(bases, start, end);
+            return new BasePiece(tally, 0, new int[0], new int[0]);
+        }
         int firstBin = start / bin;
         int bins = (end - 1) / bin - firstBin + 1;
         int[] clean = new int[bins];

@@ -175,6 +175,11 @@ final class WindowProfile implements PosteriorBlockSink {
         }
     }
 
+    /** Whether anything is collected per base: else (composition alone, say) the window needs no blocks at all. */
+    boolean perBase() {
+        return max != null || track != null || product != null;
+    }
+
     /** Whether the plot is all this window collects, so the label's posterior of each block is enough. */
     boolean plotOnly() {
         return max != null && track == null && product == null;

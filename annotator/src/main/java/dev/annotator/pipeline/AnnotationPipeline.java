@@ -29,13 +29,23 @@ public final class AnnotationPipeline {
     private final HmmModel model;
     private final AnnotationOptions options;
     private final Annotator annotator;
+    /** For records past the first {@code profile.plotted()}: the same without plot bins; else the annotator. */
+    private final Annotator unplotted;
     private final SegmentFeatures features;
+
+    /** A record and its place in the input (0 for the first). */
+    private record Numbered(long index, SequenceRecord record) {
+    }
 
     public AnnotationPipeline(HmmModel model, AnnotationOptions options) {
         this.model = model;
         this.options = options;
         this.annotator = new Annotator(model, options.method(), options.minLength(), Annotator.WINDOW, options.profile(),
                 options.starts());
+        this.unplotted = options.profile().plotsSomeRecordsOnly()
+                ? new Annotator(model, options.method(), options.minLength(), Annotator.WINDOW,
+                options.profile().withoutPlot(), options.starts())
+                : annotator;
         this.features = new SegmentFeatures(model.labels());
     }
 
@@ -90,15 +100,16 @@ public final class AnnotationPipeline {
         // is otherwise the one stretch that leaves a core idle)
         try (SequenceReader reader = SequenceFiles.open(input, stdin, warnings, budget.recordLimit(), observer,
                 options.threads() > 1);
-             OrderedParallelMap<SequenceRecord, RecordAnnotation> map = new OrderedParallelMap<>(options.threads(),
-                     r -> decode(r, inputName, tracker), sink, SequenceRecord::length, budget.basesInFlight())) {
+             OrderedParallelMap<Numbered, RecordAnnotation> map = new OrderedParallelMap<>(options.threads(),
+                     r -> decode(r, inputName, tracker), sink, r -> r.record().length(), budget.basesInFlight())) {
             writer.writeHeader();
             SequenceRecord record;
+            long index = 0;
             while ((record = reader.next()) != null) {
                 if (tracker != null) {
                     tracker.recordRead(record.length());
                 }
-                map.submit(record);
+                map.submit(new Numbered(index++, record));
             }
             if (tracker != null) {
                 tracker.readingFinished();
@@ -127,7 +138,9 @@ public final class AnnotationPipeline {
         }
     }
 
-    private RecordAnnotation decode(SequenceRecord record, String inputName, ProgressTracker tracker) {
+    private RecordAnnotation decode(Numbered numbered, String inputName, ProgressTracker tracker) {
+        SequenceRecord record = numbered.record();
+        Annotator annotator = numbered.index() < options.profile().plotted() ? this.annotator : unplotted;
         try {
             return tracker == null ? annotator.annotate(record) : annotator.annotate(record, tracker::decoded);
         } catch (ImpossibleSequenceException e) {

@@ -73,6 +73,21 @@ class PosteriorPlotTest {
             assertThat((double) plot.mean()[b]).as("mean of bin %d", b).isCloseTo(mean,
                     org.assertj.core.data.Offset.offset(tolerance));
         }
+        // GC: bins of 86 bases are shorter than the 200 bp over which island criteria judge GC (Gardiner-Garden &
+        // Frommer 1987), so each bin's value is the GC of the 200 bases around its centre, moved inside the record
+        // at its ends; counted here with the conformance tests' own letter count
+        for (int b = 0; b < plot.bins(); b++) {
+            int centre = Math.min(LENGTH, b * bin + bin / 2);
+            int from = Math.max(0, Math.min(LENGTH, centre - 100 + 200) - 200);
+            dev.annotator.conformance.BaseCounts counts = dev.annotator.conformance.BaseCounts.of(bases, from + 1,
+                    from + 200);
+            if (counts.unambiguous() == 0) {
+                assertThat(plot.gc()[b]).as("GC of bin %d", b).isNaN();
+            } else {
+                assertThat(plot.gc()[b]).as("GC of bin %d", b)
+                        .isEqualTo((float) (counts.c() + counts.g()) / counts.unambiguous());
+            }
+        }
         // stretches of the label and of the background both occur, so the bins are not flat
         assertThat(Arrays.stream(direct).max().orElseThrow() - Arrays.stream(direct).min().orElseThrow())
                 .isGreaterThan(0.6);
