@@ -29,12 +29,10 @@ public final class AnnotationPipeline {
     private final HmmModel model;
     private final AnnotationOptions options;
     private final Annotator annotator;
-    /** For records past the first {@code profile.plotted()}: the same without plot bins; else the annotator. */
-    private final Annotator unplotted;
     private final SegmentFeatures features;
 
-    /** A record and its place in the input (0 for the first). */
-    private record Numbered(long index, SequenceRecord record) {
+    /** A record and the annotator it gets. */
+    private record Job(SequenceRecord record, Annotator annotator) {
     }
 
     public AnnotationPipeline(HmmModel model, AnnotationOptions options) {
@@ -42,10 +40,6 @@ public final class AnnotationPipeline {
         this.options = options;
         this.annotator = new Annotator(model, options.method(), options.minLength(), Annotator.WINDOW, options.profile(),
                 options.starts());
-        this.unplotted = options.profile().plotsSomeRecordsOnly()
-                ? new Annotator(model, options.method(), options.minLength(), Annotator.WINDOW,
-                options.profile().withoutPlot(), options.starts())
-                : annotator;
         this.features = new SegmentFeatures(model.labels());
     }
 
@@ -100,16 +94,29 @@ public final class AnnotationPipeline {
         // is otherwise the one stretch that leaves a core idle)
         try (SequenceReader reader = SequenceFiles.open(input, stdin, warnings, budget.recordLimit(), observer,
                 options.threads() > 1);
-             OrderedParallelMap<Numbered, RecordAnnotation> map = new OrderedParallelMap<>(options.threads(),
-                     r -> decode(r, inputName, tracker), sink, r -> r.record().length(), budget.basesInFlight())) {
+             OrderedParallelMap<Job, RecordAnnotation> map = new OrderedParallelMap<>(options.threads(),
+                     job -> decode(job, inputName, tracker), sink, job -> job.record().length(),
+                     budget.basesInFlight())) {
             writer.writeHeader();
             SequenceRecord record;
             long index = 0;
+            // records past the plotted ones (in input order) are decoded without plot bins, by an annotator made
+            // when the first of them comes (a gene model's takes a moment to build; one record never needs it)
+            Annotator unplotted = null;
             while ((record = reader.next()) != null) {
                 if (tracker != null) {
                     tracker.recordRead(record.length());
                 }
-                map.submit(new Numbered(index++, record));
+                Annotator use = annotator;
+                if (options.profile().plotsSomeRecordsOnly() && index >= options.profile().plotted()) {
+                    if (unplotted == null) {
+                        unplotted = new Annotator(model, options.method(), options.minLength(), Annotator.WINDOW,
+                                options.profile().withoutPlot(), options.starts());
+                    }
+                    use = unplotted;
+                }
+                map.submit(new Job(record, use));
+                index++;
             }
             if (tracker != null) {
                 tracker.readingFinished();
@@ -138,9 +145,9 @@ public final class AnnotationPipeline {
         }
     }
 
-    private RecordAnnotation decode(Numbered numbered, String inputName, ProgressTracker tracker) {
-        SequenceRecord record = numbered.record();
-        Annotator annotator = numbered.index() < options.profile().plotted() ? this.annotator : unplotted;
+    private RecordAnnotation decode(Job job, String inputName, ProgressTracker tracker) {
+        SequenceRecord record = job.record();
+        Annotator annotator = job.annotator();
         try {
             return tracker == null ? annotator.annotate(record) : annotator.annotate(record, tracker::decoded);
         } catch (ImpossibleSequenceException e) {
