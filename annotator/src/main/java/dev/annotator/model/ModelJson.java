@@ -1,13 +1,8 @@
 package dev.annotator.model;
 
-import com.fasterxml.jackson.core.JsonFactory;
 import com.fasterxml.jackson.core.JsonLocation;
 import com.fasterxml.jackson.core.JsonProcessingException;
-import com.fasterxml.jackson.core.StreamReadFeature;
-import com.fasterxml.jackson.databind.DeserializationFeature;
 import com.fasterxml.jackson.databind.JsonNode;
-import com.fasterxml.jackson.databind.ObjectMapper;
-import com.fasterxml.jackson.databind.ObjectReader;
 import dev.annotator.error.BadInputException;
 import dev.annotator.error.IoFailureException;
 
@@ -35,13 +30,6 @@ public final class ModelJson {
      */
     public static final long MAX_FILE_BYTES = 64L << 20;
 
-    // ObjectReader is immutable, so one can be shared
-    private static final ObjectReader READER = new ObjectMapper(JsonFactory.builder()
-            .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
-            .build())
-            .reader()
-            .with(DeserializationFeature.FAIL_ON_TRAILING_TOKENS);
-
     private ModelJson() {
     }
 
@@ -55,7 +43,7 @@ public final class ModelJson {
     public static HmmModel read(InputStream in, String displayName) {
         JsonNode root;
         try {
-            root = READER.readTree(new SizeLimitedInput(in, displayName));
+            root = JsonTree.read(new SizeLimitedInput(in, displayName));
         } catch (JsonProcessingException e) {
             throw notJson(e, displayName);
         } catch (IOException e) {
