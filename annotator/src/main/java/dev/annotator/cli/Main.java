@@ -30,7 +30,7 @@ public final class Main {
         boolean debug = Arrays.asList(args).contains("--debug");
         PrintWriter out = new PrintWriter(new OutputStreamWriter(stdout, StandardCharsets.UTF_8), true);
         PrintWriter err = new PrintWriter(new OutputStreamWriter(stderr, StandardCharsets.UTF_8), true);
-        CommandLine cl = new CommandLine(new AnnotatorCommand(new Streams(stdin, stdout, err)));
+        CommandLine cl = AnnotatorCommand.commandLine(new Streams(stdin, stdout, err), args);
         cl.setOut(out);
         cl.setErr(err);
         cl.setCaseInsensitiveEnumValuesAllowed(true);
