@@ -49,7 +49,7 @@ public final class ModelJson {
         } catch (IOException e) {
             throw new IoFailureException(displayName + ": cannot read: " + e.getMessage(), e);
         }
-        if (root == null || root.isMissingNode()) {
+        if (root == null) {
             throw new BadInputException(displayName + ": empty file, expected a JSON object");
         }
         HmmModel model = new ModelTreeReader(displayName).read(root);
