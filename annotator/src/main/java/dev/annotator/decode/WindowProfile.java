@@ -26,6 +26,13 @@ final class WindowProfile implements PosteriorBlockSink {
     // log per record instead of one per base, which would cost more than the rest of this class
     private final double[] product;
     private final long[] exponent;
+    /**
+     * When every reported label is one state against one other (a two-state model), each label's only state and
+     * the other one; else null. The posterior-weighted ratio of {@link SegmentAccumulator#emissionRatio} is then
+     * just the ratio of the two states' emissions, which needs no posterior and no pass over the states.
+     */
+    private final int[] ratioIn;
+    private final int[] ratioOut;
 
     WindowProfile(ReportedLabels labels, int trackLabel, ProfileOptions options, int start, int end, int length,
                   int stateCount) {
@@ -64,12 +71,40 @@ final class WindowProfile implements PosteriorBlockSink {
             product = null;
             exponent = null;
         }
+        int[] in = new int[masks.length];
+        int[] out = new int[masks.length];
+        boolean twoStates = product != null;
+        for (int r = 0; r < masks.length && twoStates; r++) {
+            in[r] = -1;
+            out[r] = -1;
+            int states = 0;
+            for (int st = 0; st < masks[r].length; st++) {
+                states++;
+                if (masks[r][st]) {
+                    twoStates &= in[r] < 0;
+                    in[r] = st;
+                } else {
+                    twoStates &= out[r] < 0;
+                    out[r] = st;
+                }
+            }
+            twoStates &= states == 2 && in[r] >= 0 && out[r] >= 0;
+        }
+        this.ratioIn = twoStates ? in : null;
+        this.ratioOut = twoStates ? out : null;
     }
 
     @Override
     public void block(int blockStart, int blockEnd, double[] posterior, double[] emission) {
-        if (max != null && track == null && product == null && trackState >= 0) {
+        boolean productPerBase = product != null && ratioIn == null;
+        if (product != null && ratioIn != null) {
+            emissionRatios(blockStart, blockEnd, emission);
+        }
+        if (max != null && track == null && !productPerBase && trackState >= 0) {
             plotOnly(blockStart, blockEnd, posterior);
+            return;
+        }
+        if (max == null && track == null && !productPerBase) {
             return;
         }
         boolean[] mask = masks[trackLabel];
@@ -105,7 +140,7 @@ final class WindowProfile implements PosteriorBlockSink {
                     binSum += p;
                 }
             }
-            if (product != null) {
+            if (productPerBase) {
                 for (int r = 0; r < masks.length; r++) {
                     double lp = wantsPosterior && r == trackLabel ? trackPosterior
                             : SegmentAccumulator.labelPosterior(masks[r], posterior, off);
@@ -122,6 +157,33 @@ final class WindowProfile implements PosteriorBlockSink {
         if (max != null) {
             max[bin - firstBin] = (float) binMax;
             sum[bin - firstBin] = binSum;
+        }
+    }
+
+    /**
+     * The log-odds' product for a two-state model: each base's ratio is the label's state's emission over the other
+     * state's (1 where either is 0, as {@link SegmentAccumulator#emissionRatio} has it), multiplied in the same order
+     * and kept in range the same way as the per-base path does.
+     */
+    private void emissionRatios(int blockStart, int blockEnd, double[] emission) {
+        for (int r = 0; r < ratioIn.length; r++) {
+            final int in = ratioIn[r];
+            final int out = ratioOut[r];
+            double x = product[r];
+            long exp = exponent[r];
+            for (int t = blockEnd - 1; t >= blockStart; t--) {
+                int off = (t - blockStart) * stateCount;
+                double eIn = emission[off + in];
+                double eOut = emission[off + out];
+                x *= eIn > 0 && eOut > 0 ? eIn / eOut : 1;
+                if (x > BIG || x < SMALL) {
+                    int e = Math.getExponent(x);
+                    exp += e;
+                    x = Math.scalb(x, -e);
+                }
+            }
+            product[r] = x;
+            exponent[r] = exp;
         }
     }
 
