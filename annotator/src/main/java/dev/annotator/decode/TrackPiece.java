@@ -35,6 +35,23 @@ final class TrackPiece {
         this.step = step;
     }
 
+    /** Whether the bins are single bases, so {@link #addBases} can be used. */
+    boolean perBase() {
+        return step == 1;
+    }
+
+    /**
+     * With bins of one base: the posteriors of the bases [from, to), base t's at
+     * {@code values[(t - from) * stride + offset]}, taken last to first as {@link #add} takes them, in one loop that
+     * merges equal neighbours as it goes (a call per base, and a bin closed per base, cost as much as the decoding's
+     * own bookkeeping). Do not mix with {@link #add}.
+     */
+    void addBases(int from, int to, double[] values, int stride, int offset) {
+        for (int t = to - 1; t >= from; t--) {
+            pushDescending(t, milli(values[(t - from) * stride + offset]));
+        }
+    }
+
     /** The label posterior at {@code t}; positions must descend. */
     void add(int t, double p) {
         if (t < binStart || binStart < 0) {

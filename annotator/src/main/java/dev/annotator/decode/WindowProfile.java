@@ -100,15 +100,20 @@ final class WindowProfile implements PosteriorBlockSink {
         if (product != null && ratioIn != null) {
             emissionRatios(blockStart, blockEnd, emission);
         }
-        if (max != null && track == null && !productPerBase && trackState >= 0) {
+        // a one-state label's per-base track is read straight from the posterior rows
+        boolean trackViaAdd = track != null && !(track.perBase() && trackState >= 0);
+        if (track != null && !trackViaAdd) {
+            track.addBases(blockStart, blockEnd, posterior, stateCount, trackState);
+        }
+        if (max != null && !trackViaAdd && !productPerBase && trackState >= 0) {
             plotOnly(blockStart, blockEnd, posterior);
             return;
         }
-        if (max == null && track == null && !productPerBase) {
+        if (max == null && !trackViaAdd && !productPerBase) {
             return;
         }
         boolean[] mask = masks[trackLabel];
-        boolean wantsPosterior = track != null || max != null;
+        boolean wantsPosterior = trackViaAdd || max != null;
         // the plot bin of t and where that bin starts, stepped down as t descends (no division per base); the
         // bin's maximum and sum stay in locals while t is inside it
         int bin = max == null ? 0 : (blockEnd - 1) / plotBin;
@@ -122,7 +127,7 @@ final class WindowProfile implements PosteriorBlockSink {
                 double p = trackState >= 0 ? posterior[off + trackState]
                         : SegmentAccumulator.labelPosterior(mask, posterior, off);
                 trackPosterior = p;
-                if (track != null) {
+                if (trackViaAdd) {
                     track.add(t, p);
                 }
                 if (max != null) {
