@@ -52,7 +52,7 @@ final class SideOutputs implements AutoCloseable {
                 s.trackTarget = s.add(OutputTarget.open(trackPath, null, force));
                 OutputStream raw = s.trackTarget.stream();
                 if (trackPath.endsWith(".gz")) {
-                    s.trackGzip = new GZIPOutputStream(raw, 1 << 16);
+                    s.trackGzip = new dev.annotator.io.TextGzipOutputStream(raw, 1 << 16);
                     raw = s.trackGzip;
                 }
                 s.trackText = new BufferedWriter(new OutputStreamWriter(raw, StandardCharsets.UTF_8), 1 << 16);
