@@ -156,8 +156,28 @@ public final class Annotator {
                 whole.block(s, e, p, em);
             };
             if (method == DecodeMethod.VITERBI) {
-                statePath = viterbi.decode(bases).path();
-                logLik = forwardBackward.run(bases, sink);
+                // the path and the forward-backward pass are independent: in a fork-join pool (more than one
+                // thread) they run at once; the path first, so a sequence no path can emit fails as before
+                RecursiveTask<byte[]> path = new RecursiveTask<>() {
+                    @Override
+                    protected byte[] compute() {
+                        return viterbi.decode(bases).path();
+                    }
+                };
+                RecursiveTask<Double> pass = new RecursiveTask<>() {
+                    @Override
+                    protected Double compute() {
+                        return forwardBackward.run(bases, sink);
+                    }
+                };
+                if (ForkJoinTask.inForkJoinPool()) {
+                    ForkJoinTask.invokeAll(path, pass);
+                } else {
+                    path.invoke();
+                    pass.invoke();
+                }
+                statePath = path.join();
+                logLik = pass.join();
             } else {
                 PosteriorDecoding decoding = posteriorViterbi.decode(bases, sink);
                 statePath = decoding.path().path();
