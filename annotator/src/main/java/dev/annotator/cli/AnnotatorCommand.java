@@ -54,15 +54,9 @@ public final class AnnotatorCommand implements java.util.concurrent.Callable<Int
                 break;
             }
         }
-        boolean known = false;
-        for (Class<?> c : SUBCOMMANDS) {
-            known |= nameOf(c).equals(named);
-        }
-        for (Class<?> c : SUBCOMMANDS) {
-            if (!known || nameOf(c).equals(named)) {
-                cl.addSubcommand(c);
-            }
-        }
+        String name = named;
+        List<Class<?>> chosen = SUBCOMMANDS.stream().filter(c -> nameOf(c).equals(name)).toList();
+        (chosen.isEmpty() ? SUBCOMMANDS : chosen).forEach(cl::addSubcommand);
         return cl;
     }
 

@@ -71,27 +71,15 @@ final class WindowProfile implements PosteriorBlockSink {
             product = null;
             exponent = null;
         }
+        // with two states, a label of one of them has the other against it
         int[] in = new int[masks.length];
-        int[] out = new int[masks.length];
-        boolean twoStates = product != null;
+        boolean twoStates = product != null && stateCount == 2;
         for (int r = 0; r < masks.length && twoStates; r++) {
-            in[r] = -1;
-            out[r] = -1;
-            int states = 0;
-            for (int st = 0; st < masks[r].length; st++) {
-                states++;
-                if (masks[r][st]) {
-                    twoStates &= in[r] < 0;
-                    in[r] = st;
-                } else {
-                    twoStates &= out[r] < 0;
-                    out[r] = st;
-                }
-            }
-            twoStates &= states == 2 && in[r] >= 0 && out[r] >= 0;
+            twoStates = masks[r][0] != masks[r][1];
+            in[r] = masks[r][0] ? 0 : 1;
         }
         this.ratioIn = twoStates ? in : null;
-        this.ratioOut = twoStates ? out : null;
+        this.ratioOut = twoStates ? java.util.Arrays.stream(in).map(s -> 1 - s).toArray() : null;
     }
 
     @Override
