@@ -396,7 +396,7 @@ public final class Annotator {
                 logLikelihood = forwardBackward.runRange(bases, start, end, before, last, runs);
             }
             progress.accept(end - start);
-            return runs;
+            return runs.finish();
         }
     }
 }

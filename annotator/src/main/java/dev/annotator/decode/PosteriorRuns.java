@@ -62,9 +62,6 @@ final class PosteriorRuns implements PosteriorBlockSink {
                     close(r, t + 1);
                 }
             }
-            if (start == rangeStart && open[r] != null) {
-                close(r, rangeStart);
-            }
             if (values != null) {
                 plot.plotValues(start, end, values, 1, 0);
             } else if (plotted) {
@@ -83,6 +80,20 @@ final class PosteriorRuns implements PosteriorBlockSink {
     private void close(int label, int start0) {
         closed.add(new RawSegment(label, start0, openEnd[label], open[label]));
         open[label] = null;
+    }
+
+    /**
+     * Closes the runs still open at the start of the range, once its first block has been fed. Kept out of
+     * {@link #block}: true once per range, a branch there is compiled as never taken and costs a recompilation of
+     * that hot method when it is.
+     */
+    PosteriorRuns finish() {
+        for (int r = 0; r < open.length; r++) {
+            if (open[r] != null) {
+                close(r, rangeStart);
+            }
+        }
+        return this;
     }
 
     /** Runs found, in discovery order (any order of labels and positions). */

@@ -408,7 +408,45 @@ public final class ForwardBackward {
         }
     }
 
+    /**
+     * Two states: the backward vectors alone (boundary vectors) or with the posteriors, in separate loops so that
+     * neither carries the other's branch. The base after the span, when there is one, is stepped over first.
+     */
     private void backwardSpan2(int[] sy, int len, int nextSymbol, double[] beta, double[] alpha, double[] post) {
+        if (nextSymbol >= 0) {
+            backStep2(nextSymbol, beta);
+        }
+        if (alpha == null) {
+            for (int i = len - 1; i > 0; i--) {
+                backStep2(sy[i], beta);
+            }
+        } else {
+            backwardPosteriors2(sy, len, beta, alpha, post);
+        }
+    }
+
+    /** The backward vector one base earlier: {@code beta} of a base whose successor emits symbol {@code next}. */
+    private void backStep2(int next, double[] beta) {
+        final double[] e = em;
+        int y = next << 1;
+        double w0 = e[y] * beta[0];
+        double w1 = e[y + 1] * beta[1];
+        double n0 = a00 * w0 + a01 * w1;
+        double n1 = a10 * w0 + a11 * w1;
+        if (n0 + n1 < RESCALE_BELOW) {
+            n0 *= RESCALE_BY;
+            n1 *= RESCALE_BY;
+        }
+        beta[0] = n0;
+        beta[1] = n1;
+    }
+
+    /**
+     * On entry {@code beta} is the backward vector of the span's last base; on exit that of its first. Each base's
+     * normalised posteriors go to {@code post}. The step of {@link #backStep2} is written out here with the vector
+     * in locals: this is the two-state model's hottest loop, while boundary vectors take few steps.
+     */
+    private void backwardPosteriors2(int[] sy, int len, double[] beta, double[] alpha, double[] post) {
         final double[] e = em;
         final double t00 = a00;
         final double t01 = a01;
@@ -416,65 +454,80 @@ public final class ForwardBackward {
         final double t11 = a11;
         double b0 = beta[0];
         double b1 = beta[1];
-        int next = nextSymbol;
-        for (int i = len - 1; i >= 0; i--) {
-            if (next >= 0) {
-                int y = next << 1;
-                double w0 = e[y] * b0;
-                double w1 = e[y + 1] * b1;
-                double n0 = t00 * w0 + t01 * w1;
-                double n1 = t10 * w0 + t11 * w1;
-                if (n0 + n1 < RESCALE_BELOW) {
-                    n0 *= RESCALE_BY;
-                    n1 *= RESCALE_BY;
-                }
-                b0 = n0;
-                b1 = n1;
+        int i = len - 1;
+        while (true) {
+            double g0 = alpha[2 * i] * b0;
+            double g1 = alpha[2 * i + 1] * b1;
+            double inv = 1.0 / (g0 + g1);
+            post[2 * i] = g0 * inv;
+            post[2 * i + 1] = g1 * inv;
+            if (i == 0) {
+                break;
             }
-            if (alpha != null) {
-                double g0 = alpha[2 * i] * b0;
-                double g1 = alpha[2 * i + 1] * b1;
-                double inv = 1.0 / (g0 + g1);
-                post[2 * i] = g0 * inv;
-                post[2 * i + 1] = g1 * inv;
+            int y = sy[i] << 1;
+            double w0 = e[y] * b0;
+            double w1 = e[y + 1] * b1;
+            double n0 = t00 * w0 + t01 * w1;
+            double n1 = t10 * w0 + t11 * w1;
+            if (n0 + n1 < RESCALE_BELOW) {
+                n0 *= RESCALE_BY;
+                n1 *= RESCALE_BY;
             }
-            next = sy[i];
+            b0 = n0;
+            b1 = n1;
+            i--;
         }
         beta[0] = b0;
         beta[1] = b1;
     }
 
+    /** Sparse topologies: as {@link #backwardSpan2}, the boundary-vector and posterior loops kept apart. */
     private void backwardSpanSparse(int[] sy, int len, int nextSymbol, double[] beta, double[] alpha,
                                     double[] post, double[] weighted) {
+        if (nextSymbol >= 0) {
+            backStepSparse(nextSymbol, beta, weighted);
+        }
+        if (alpha == null) {
+            for (int i = len - 1; i > 0; i--) {
+                backStepSparse(sy[i], beta, weighted);
+            }
+        } else {
+            for (int i = len - 1; ; i--) {
+                posteriorRow(alpha, beta, post, i * k);
+                if (i == 0) {
+                    break;
+                }
+                backStepSparse(sy[i], beta, weighted);
+            }
+        }
+    }
+
+    /** The backward vector one base earlier, in place: {@code beta} of a base whose successor emits {@code next}. */
+    private void backStepSparse(int next, double[] beta, double[] weighted) {
         final double[] e = em;
-        int next = nextSymbol;
-        for (int i = len - 1; i >= 0; i--) {
-            if (next >= 0) {
-                int y = next * k;
-                for (int j = 0; j < k; j++) {
-                    weighted[j] = e[y + j] * beta[j];
-                }
-                double sum = succGroups.gather(weighted, 0, beta, 0, null, 0);
-                if (sum < RESCALE_BELOW) {
-                    for (int s = 0; s < k; s++) {
-                        beta[s] *= RESCALE_BY;
-                    }
-                }
+        int y = next * k;
+        for (int j = 0; j < k; j++) {
+            weighted[j] = e[y + j] * beta[j];
+        }
+        double sum = succGroups.gather(weighted, 0, beta, 0, null, 0);
+        if (sum < RESCALE_BELOW) {
+            for (int s = 0; s < k; s++) {
+                beta[s] *= RESCALE_BY;
             }
-            if (alpha != null) {
-                int off = i * k;
-                double z = 0;
-                for (int s = 0; s < k; s++) {
-                    double g = alpha[off + s] * beta[s];
-                    post[off + s] = g;
-                    z += g;
-                }
-                double inv = 1.0 / z;
-                for (int s = 0; s < k; s++) {
-                    post[off + s] *= inv;
-                }
-            }
-            next = sy[i];
+        }
+    }
+
+    /** The normalised posteriors of one base from its forward row and backward vector. */
+    private void posteriorRow(double[] alpha, double[] beta, double[] post, int off) {
+        double z = 0;
+        for (int s = 0; s < k; s++) {
+            double g = alpha[off + s] * beta[s];
+            post[off + s] = g;
+            z += g;
+        }
+        double inv = 1.0 / z;
+        for (int s = 0; s < k; s++) {
+            post[off + s] *= inv;
         }
     }
 }
