@@ -4,8 +4,8 @@ import dev.annotator.decode.DecodeMethod;
 import dev.annotator.decode.GeneStarts;
 import dev.annotator.decode.ProfileOptions;
 import dev.annotator.error.IoFailureException;
+import dev.annotator.io.InputChecksum;
 import dev.annotator.model.HmmModel;
-import dev.annotator.model.InputFingerprint;
 import dev.annotator.model.Label;
 import dev.annotator.model.ModelLoader;
 import dev.annotator.pipeline.AnnotationOptions;
@@ -182,10 +182,10 @@ final class AnnotateCommand implements Callable<Integer> {
         ProfileOptions profile = new ProfileOptions(label, trackStep, posteriorTrack != null,
                 summary != null || report != null, report != null ? HtmlReport.PLOT_POINTS : 0,
                 summary != null, HtmlReport.PLOTTED);
-        List<InputFingerprint> fingerprints = new ArrayList<>();
+        List<InputChecksum> checksums = new ArrayList<>();
         if (report != null) {
             if (Files.isRegularFile(Path.of(model))) {
-                fingerprints.add(InputFingerprints.of(model));
+                checksums.add(InputFingerprints.checksumOf(model));
             }
         }
         AnnotationPipeline pipeline = new AnnotationPipeline(hmm,
@@ -196,10 +196,10 @@ final class AnnotateCommand implements Callable<Integer> {
              SideOutputs side = SideOutputs.open(hmm, summary, posteriorTrack, label, trackStep, report, force)) {
             run = pipeline.run(input, parent.streams().in(), out.writer(), out.name(),
                     w -> err.println("annotator: warning: " + w), side::record, reporter);
-            if (run.inputFingerprint() != null) {
-                fingerprints.add(0, run.inputFingerprint());
+            if (run.inputChecksum() != null) {
+                checksums.add(0, run.inputChecksum());
             }
-            side.finishReport(fingerprints, "-".equals(input) ? "standard input" : input,
+            side.finishReport(checksums, "-".equals(input) ? "standard input" : input,
                     String.join(" ", spec.commandLine().getParseResult().originalArgs()), run.seconds());
             side.commit();
             try {

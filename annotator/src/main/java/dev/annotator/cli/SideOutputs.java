@@ -100,7 +100,7 @@ final class SideOutputs implements AutoCloseable {
     }
 
     /** Writes the report, if one was asked for, once the run is done. */
-    void finishReport(java.util.List<dev.annotator.model.InputFingerprint> inputs, String inputName, String command,
+    void finishReport(java.util.List<dev.annotator.io.InputChecksum> inputs, String inputName, String command,
                       double seconds) {
         if (report == null) {
             return;

@@ -84,10 +84,10 @@ public final class AnnotationPipeline {
             counts[1] += annotation.segments().size();
         };
         ProgressTracker tracker = reporter == null ? null : new ProgressTracker(reporter, inputSize(input));
-        // a report names its input by SHA-256, taken from the bytes as they are parsed: one pass over the input
-        StreamFingerprint fingerprint = options.profile().plotPoints() > 0 ? new StreamFingerprint() : null;
-        dev.annotator.io.RawInputObserver observer = tracker == null ? fingerprint
-                : fingerprint == null ? tracker : tracker.andThen(fingerprint);
+        // a report names its input by size and CRC-32, taken from the bytes as they are parsed: one pass
+        StreamChecksum checksum = options.profile().plotPoints() > 0 ? new StreamChecksum() : null;
+        dev.annotator.io.RawInputObserver observer = tracker == null ? checksum
+                : checksum == null ? tracker : tracker.andThen(checksum);
         MemoryBudget budget = MemoryBudget.ofThisJvm(annotator.pathBytesPerBase(), annotator.widestBackPointerRow(),
                 model.reportedLabels().size(), options.method(), annotator.pathsAtOnce());
         // with a second thread allowed, gzip input is inflated on it while the first parses (a long record's read
@@ -129,12 +129,9 @@ public final class AnnotationPipeline {
             if (tracker != null) {
                 tracker.close();
             }
-            if (fingerprint != null) {
-                fingerprint.close(); // waits for the digest; finish() below then only reads it
-            }
         }
         return new RunSummary(counts[0], bases[0], counts[1], (System.nanoTime() - started) / 1e9,
-                fingerprint == null ? null : fingerprint.finish(inputName));
+                checksum == null ? null : checksum.finish(inputName));
     }
 
     private static long inputSize(String input) {

@@ -2,6 +2,8 @@ package dev.annotator.pipeline;
 
 import dev.annotator.error.IoFailureException;
 import dev.annotator.error.MissingInputException;
+import dev.annotator.io.InputChecksum;
+import dev.annotator.io.RawInputObserver;
 import dev.annotator.model.InputFingerprint;
 
 import java.io.IOException;
@@ -12,7 +14,10 @@ import java.nio.file.InvalidPathException;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
 
-/** Size and SHA-256 of an input file as stored (compressed or not), for a trained model's provenance. */
+/**
+ * Size and checksum of an input file as stored (compressed or not): SHA-256 for a trained model's provenance,
+ * CRC-32 for a report's run summary.
+ */
 public final class InputFingerprints {
     private InputFingerprints() {
     }
@@ -21,6 +26,21 @@ public final class InputFingerprints {
      * @throws MissingInputException the file does not exist or cannot be read
      */
     public static InputFingerprint of(String name) {
+        StreamFingerprint fingerprint = new StreamFingerprint();
+        readThrough(name, fingerprint);
+        return fingerprint.finish(name);
+    }
+
+    /**
+     * @throws MissingInputException the file does not exist or cannot be read
+     */
+    public static InputChecksum checksumOf(String name) {
+        StreamChecksum checksum = new StreamChecksum();
+        readThrough(name, checksum);
+        return checksum.finish(name);
+    }
+
+    private static void readThrough(String name, RawInputObserver observer) {
         Path path;
         try {
             path = Path.of(name);
@@ -30,12 +50,11 @@ public final class InputFingerprints {
         if (Files.isDirectory(path)) {
             throw new MissingInputException(name + ": is a directory");
         }
-        StreamFingerprint fingerprint = new StreamFingerprint();
         byte[] buf = new byte[1 << 16];
         try (InputStream in = Files.newInputStream(path)) {
             int n;
             while ((n = in.read(buf)) > 0) {
-                fingerprint.consumed(buf, 0, n);
+                observer.consumed(buf, 0, n);
             }
         } catch (NoSuchFileException e) {
             throw new MissingInputException(name + ": no such file");
@@ -44,6 +63,5 @@ public final class InputFingerprints {
         } catch (IOException e) {
             throw new IoFailureException(name + ": read failed: " + e.getMessage(), e);
         }
-        return fingerprint.finish(name);
     }
 }

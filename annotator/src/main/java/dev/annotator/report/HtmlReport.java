@@ -5,7 +5,7 @@ import dev.annotator.decode.RecordAnnotation;
 import dev.annotator.decode.RecordProfile;
 import dev.annotator.decode.Segment;
 import dev.annotator.model.HmmModel;
-import dev.annotator.model.InputFingerprint;
+import dev.annotator.io.InputChecksum;
 import dev.annotator.model.Label;
 
 import java.io.IOException;
@@ -121,14 +121,14 @@ public final class HtmlReport implements AutoCloseable {
     }
 
     /**
-     * @param inputs    the input files with size and SHA-256 (empty for standard input)
+     * @param inputs    the input files with size and CRC-32 (empty for standard input)
      * @param options   the command line as given
      * @param version   the tool's version
      * @param date      when the run ended (ISO 8601)
      * @param seconds   the run's wall time
      * @param caution   the research-use caution
      */
-    public void write(Writer out, List<InputFingerprint> inputs, String inputName, String options, String version,
+    public void write(Writer out, List<InputChecksum> inputs, String inputName, String options, String version,
                       String date, double seconds, String caution) throws IOException {
         Xml x = new Xml(out);
         out.write("<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n<!DOCTYPE html>\n");
@@ -145,8 +145,8 @@ public final class HtmlReport implements AutoCloseable {
         x.element("p", caution, "class", "caution");
         x.element("h2", "Run");
         x.open("table", "class", "run");
-        for (InputFingerprint f : inputs) {
-            runRow(x, "input", f.name() + " (" + f.bytes() + " bytes, SHA-256 " + f.sha256() + ")");
+        for (InputChecksum f : inputs) {
+            runRow(x, "input", f.name() + " (" + f.bytes() + " bytes, CRC-32 " + f.crc32Hex() + ")");
         }
         if (inputs.isEmpty()) {
             runRow(x, "input", inputName + " (standard input: no size or checksum)");
