@@ -19,6 +19,8 @@ final class RecordPlot {
     private static final int BAR_TOP = 185;
     private static final int BAR_HEIGHT = 16;
     private static final int HEIGHT = 240;
+    /** Units of a plotted value (a posterior or a fraction) in the series' point lists: thousandths. */
+    static final int VALUE_UNITS = 1000;
 
     private RecordPlot() {
     }
@@ -56,24 +58,32 @@ final class RecordPlot {
         x.element("text", "posterior", "x", "14", "y", num((TOP + BOTTOM) / 2.0), "transform",
                 "rotate(-90 14 " + num((TOP + BOTTOM) / 2.0) + ")", "text-anchor", "middle");
         x.element("text", "GC", "x", str(RIGHT + 36), "y", num((TOP + BOTTOM) / 2.0));
-        // mean (shaded area), maximum (line), GC (dashed line)
-        StringBuilder area = new StringBuilder(16 * plot.bins() + 32).append(LEFT).append(',').append(BOTTOM);
-        appendPoints(area, plot.mean(), plot.binSize(), length);
-        area.append(' ').append(RIGHT).append(',').append(BOTTOM);
-        StringBuilder max = appendPoints(new StringBuilder(16 * plot.bins()), plot.max(), plot.binSize(), length);
-        StringBuilder gc = appendPoints(new StringBuilder(16 * plot.bins()), plot.gc(), plot.binSize(), length);
+        // mean (shaded area), maximum (line), GC (dashed line), in bin units mapped into the frame by one transform
+        String transform = seriesTransform(plot.binSize(), length);
+        int last = plot.bins() - 1;
+        String lastX = Axis.fixed(binUnits(Math.min(length, (last + 0.5) * plot.binSize()), plot.binSize()), 3);
+        StringBuilder area = new StringBuilder(8 * plot.bins() + 64);
+        area.append("-0.5,0");
+        appendPoints(area, plot.mean(), lastX);
+        area.append(' ');
+        Axis.appendFixed(area, binUnits(length, plot.binSize()), 3).append(",0");
+        StringBuilder max = appendPoints(new StringBuilder(8 * plot.bins()), plot.max(), lastX);
+        StringBuilder gc = appendPoints(new StringBuilder(8 * plot.bins()), plot.gc(), lastX);
         // the lines' lists start with the separator of their first point
         trimStart(max);
         trimStart(gc);
-        // point lists hold digits, commas, points and spaces only: nothing to escape
+        // point lists hold digits, commas, points, minus signs and spaces only: nothing to escape
+        out.append("<g transform=\"").append(transform).append("\">");
         out.append("<polygon points=\"").append(area).append("\" fill=\"").append(HtmlReport.BLUE)
                 .append("\" fill-opacity=\"0.25\" stroke=\"none\"/>");
         out.append("<polyline points=\"").append(max).append("\" fill=\"none\" stroke=\"").append(HtmlReport.BLUE)
-                .append("\" stroke-width=\"1.5\"/>");
+                .append("\" stroke-width=\"1.5\" vector-effect=\"non-scaling-stroke\"/>");
         if (gc.length() > 0) {
             out.append("<polyline points=\"").append(gc).append("\" fill=\"none\" stroke=\"")
-                    .append(HtmlReport.ORANGE).append("\" stroke-width=\"1\" stroke-dasharray=\"4 2\"/>");
+                    .append(HtmlReport.ORANGE).append("\" stroke-width=\"1\" stroke-dasharray=\"4 2\"")
+                    .append(" vector-effect=\"non-scaling-stroke\"/>");
         }
+        out.append("</g>");
         // segments
         x.element("text", "segments", "x", str(LEFT - 6), "y", str(BAR_TOP + 12), "text-anchor", "end");
         String label = null;
@@ -113,10 +123,6 @@ final class RecordPlot {
         return LEFT + (RIGHT - LEFT) * position / Math.max(1, length);
     }
 
-    private static double yOf(double value) {
-        return BOTTOM - value * (BOTTOM - TOP);
-    }
-
     /**
      * A plot coordinate with one decimal, rounded half up. Written by hand rather than with the formatter: a plot has
      * thousands of coordinates, and formatting them was most of the report's cost on a cold start.
@@ -136,15 +142,40 @@ final class RecordPlot {
     }
 
     /**
-     * Appends " x,y" for the centre of every bin whose value is finite. One loop of its own, called three times
-     * per plot: run that often, it gets compiled, where the same loop inside {@link #draw} (called once per plot,
-     * at most 50 times a run) stayed interpreted.
+     * The series are written in bin units: x is a bin's index (its centre; the last bin's centre is clamped to the
+     * record's end, {@code lastX}), y the value in thousandths, both small integers, shorter and quicker to write
+     * than pixel coordinates with decimals. This transform (SVG 1.1, section 7.6: translate, then scale) maps them
+     * into the frame; the strokes keep their width in pixels through {@code vector-effect="non-scaling-stroke"}.
      */
-    private static StringBuilder appendPoints(StringBuilder b, float[] values, int binSize, double length) {
+    static String seriesTransform(int binSize, double length) {
+        double pixelsPerBin = (RIGHT - LEFT) * binSize / Math.max(1, length);
+        StringBuilder b = new StringBuilder(64).append("translate(");
+        Axis.appendFixed(b, LEFT + pixelsPerBin / 2, 6).append(' ').append(BOTTOM).append(") scale(");
+        Axis.appendFixed(b, pixelsPerBin, 9).append(' ');
+        return Axis.appendFixed(b, -(BOTTOM - TOP) / (double) VALUE_UNITS, 6).append(')').toString();
+    }
+
+    /** A position along the record in bin units: 0 at the first bin's centre. */
+    private static double binUnits(double position, int binSize) {
+        return position / binSize - 0.5;
+    }
+
+    /**
+     * Appends " x,y" for every bin whose value is finite. One loop of its own, called three times per plot: run
+     * that often, it gets compiled, where the same loop inside {@link #draw} (called once per plot, at most 50
+     * times a run) stayed interpreted.
+     */
+    private static StringBuilder appendPoints(StringBuilder b, float[] values, String lastX) {
+        int last = values.length - 1;
         for (int i = 0; i < values.length; i++) {
             if (Float.isFinite(values[i])) {
-                double xs = xOf(Math.min(length, (i + 0.5) * binSize), length);
-                appendNum(appendNum(b.append(' '), xs).append(','), yOf(values[i]));
+                b.append(' ');
+                if (i < last) {
+                    b.append(i);
+                } else {
+                    b.append(lastX);
+                }
+                b.append(',').append(Math.round(values[i] * VALUE_UNITS));
             }
         }
         return b;
