@@ -378,10 +378,6 @@ public final class Annotator {
                         bases.length, parameters.stateCount());
                 if (!window.perBase()) {
                     logLikelihood = forwardBackward.runRange(bases, start, end, before, last, runs);
-                } else if (window.plotOnly()) {
-                    // the runs compute the label's posterior at every base anyway: they feed the plot as they go
-                    runs.feedPlot(trackLabel, window);
-                    logLikelihood = forwardBackward.runRange(bases, start, end, before, last, runs);
                 } else {
                     logLikelihood = forwardBackward.runRange(bases, start, end, before, last, (s, e, p, em) -> {
                         runs.block(s, e, p, em);

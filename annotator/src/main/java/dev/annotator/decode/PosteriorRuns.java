@@ -18,10 +18,6 @@ final class PosteriorRuns implements PosteriorBlockSink {
     private final SegmentAccumulator[] open;
     private final int[] openEnd;
     private final List<RawSegment> closed = new ArrayList<>();
-    private int plotLabel = -1;
-    private WindowProfile plot;
-    /** A label of several states: its posterior of the current block's bases, handed to the plot after the block. */
-    private double[] plotScratch;
 
     PosteriorRuns(ReportedLabels labels, int rangeStart, int stateCount) {
         this.labels = labels;
@@ -31,27 +27,18 @@ final class PosteriorRuns implements PosteriorBlockSink {
         this.openEnd = new int[labels.size()];
     }
 
-    /** Also hands every base's posterior of one label to a plot, block by block as the runs see them. */
-    void feedPlot(int label, WindowProfile plot) {
-        this.plotLabel = label;
-        this.plot = plot;
-    }
-
+    /**
+     * Nothing here serves a plot: the same compiled code runs for records with and without one (a report plots only
+     * the first records, and a branch on it here was compiled one way and thrown away at the first record past them).
+     */
     @Override
     public void block(int start, int end, double[] posterior, double[] emission) {
         boolean[][] masks = labels.stateMasks();
         for (int r = 0; r < open.length; r++) {
             boolean[] mask = masks[r];
-            // a one-state label's posterior is read from the posterior rows; a label of several states is summed
-            // per base below and kept for the plot
-            boolean plotted = r == plotLabel;
-            double[] values = plotted && plot.plottedState() < 0 ? plotValues(end - start) : null;
             for (int t = end - 1; t >= start; t--) {
                 int off = (t - start) * stateCount;
                 double p = SegmentAccumulator.labelPosterior(mask, posterior, off);
-                if (values != null) {
-                    values[t - start] = p;
-                }
                 if (p > 0.5) {
                     if (open[r] == null) {
                         open[r] = new SegmentAccumulator(mask);
@@ -62,19 +49,7 @@ final class PosteriorRuns implements PosteriorBlockSink {
                     close(r, t + 1);
                 }
             }
-            if (values != null) {
-                plot.plotValues(start, end, values, 1, 0);
-            } else if (plotted) {
-                plot.plotValues(start, end, posterior, stateCount, plot.plottedState());
-            }
         }
-    }
-
-    private double[] plotValues(int length) {
-        if (plotScratch == null || plotScratch.length < length) {
-            plotScratch = new double[length];
-        }
-        return plotScratch;
     }
 
     private void close(int label, int start0) {

@@ -33,6 +33,8 @@ final class WindowProfile implements PosteriorBlockSink {
      */
     private final int[] ratioIn;
     private final int[] ratioOut;
+    /** A plotted label of several states: its posterior of the current block's bases. */
+    private double[] labelScratch;
 
     WindowProfile(ReportedLabels labels, int trackLabel, ProfileOptions options, int start, int end, int length,
                   int stateCount) {
@@ -93,7 +95,7 @@ final class WindowProfile implements PosteriorBlockSink {
         if (track != null && !trackViaAdd) {
             track.addBases(blockStart, blockEnd, posterior, stateCount, trackState);
         }
-        if (max != null && !trackViaAdd && !productPerBase && trackState >= 0) {
+        if (max != null && !trackViaAdd && !productPerBase) {
             plotOnly(blockStart, blockEnd, posterior);
             return;
         }
@@ -181,10 +183,23 @@ final class WindowProfile implements PosteriorBlockSink {
     }
 
     /**
-     * The report's common case (plot bins of a one-state label, nothing else): the posterior rows hold the values.
+     * The report's common case (plot bins, nothing else per base): a one-state label's values are in the posterior
+     * rows; a label of several states is summed per base first.
      */
     private void plotOnly(int blockStart, int blockEnd, double[] posterior) {
-        plotValues(blockStart, blockEnd, posterior, stateCount, trackState);
+        if (trackState >= 0) {
+            plotValues(blockStart, blockEnd, posterior, stateCount, trackState);
+            return;
+        }
+        int n = blockEnd - blockStart;
+        if (labelScratch == null || labelScratch.length < n) {
+            labelScratch = new double[n];
+        }
+        boolean[] mask = masks[trackLabel];
+        for (int i = 0; i < n; i++) {
+            labelScratch[i] = SegmentAccumulator.labelPosterior(mask, posterior, i * stateCount);
+        }
+        plotValues(blockStart, blockEnd, labelScratch, 1, 0);
     }
 
     /**
@@ -233,11 +248,6 @@ final class WindowProfile implements PosteriorBlockSink {
     /** Whether anything is collected per base: else (composition alone, say) the window needs no blocks at all. */
     boolean perBase() {
         return max != null || track != null || product != null;
-    }
-
-    /** Whether the plot is all this window collects, so the label's posterior of each block is enough. */
-    boolean plotOnly() {
-        return max != null && track == null && product == null;
     }
 
     /** The plotted label's only state, whose posterior is the label's; -1 when the label has several. */
