@@ -57,6 +57,9 @@ public final class HtmlReport implements AutoCloseable {
     private final ExecutorService drawing;
     private final Histogram lengths = Histogram.logarithmic(1, 1e7, 28);
     private final Histogram confidences = Histogram.linear(0, 1, 20);
+    /** The last plot frame made, and its label: used by the drawing thread only, whose tasks run one after another. */
+    private String frameLabel;
+    private String frameText;
 
     record Row(String seqid, int length, double gc, double oe, long ambiguous, int[] counts, long[] covered,
                double meanConfidence, List<String> flags) {
@@ -112,12 +115,21 @@ public final class HtmlReport implements AutoCloseable {
             Plotted plotted = new Plotted(a.seqid(), a.length(), p.plot(), a.segments(), p.trackLabel());
             FutureTask<String> svg = new FutureTask<>(() -> {
                 StringBuilder b = new StringBuilder(4096 + 256 * plotted.segments().size());
-                RecordPlot.draw(b, plotted);
+                RecordPlot.draw(b, plotted, frameFor(plotted.label()));
                 return b.toString();
             });
             drawing.execute(svg);
             plots.add(new Drawn(a.seqid(), svg));
         }
+    }
+
+    /** The plots' shared frame for a label, made on the drawing thread (the only one that touches it). */
+    private String frameFor(String label) throws IOException {
+        if (!label.equals(frameLabel)) {
+            frameText = RecordPlot.frame(label);
+            frameLabel = label;
+        }
+        return frameText;
     }
 
     /**

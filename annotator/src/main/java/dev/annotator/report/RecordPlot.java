@@ -26,21 +26,17 @@ final class RecordPlot {
     }
 
     /**
-     * Draws into {@code out}. The fixed parts go through {@link Xml}; the parts repeated per bin and per segment are
-     * appended directly (numbers need no escaping, labels are escaped once), which made drawing several times
-     * cheaper in a cold process, where such code runs interpreted for its first thousands of rounds.
+     * What every plot of one label shares, whatever the record: legend, frame, value axes and their titles. Made
+     * once per report and appended to each plot as it is (in a cold process the markup writer's calls for it cost
+     * more than the plot's own numbers).
      */
-    static void draw(StringBuilder out, HtmlReport.Plotted p) throws IOException {
+    static String frame(String label) throws IOException {
+        StringBuilder out = new StringBuilder(2048);
         Xml x = new Xml(out);
-        PosteriorPlot plot = p.plot();
-        double length = p.length();
-        x.open("svg", "xmlns", "http://www.w3.org/2000/svg", "width", Integer.toString(WIDTH), "height",
-                Integer.toString(HEIGHT), "viewBox", "0 0 " + WIDTH + " " + HEIGHT, "role", "img",
-                "aria-label", "posterior of " + p.label() + " along " + p.seqid(), "data-seqid", p.seqid());
         // legend
         x.element("line", "", "x1", "60", "y1", "12", "x2", "80", "y2", "12", "stroke", HtmlReport.BLUE,
                 "stroke-width", "2");
-        x.element("text", "posterior of " + p.label() + " (maximum per bin; shaded: mean)", "x", "84", "y", "16");
+        x.element("text", "posterior of " + label + " (maximum per bin; shaded: mean)", "x", "84", "y", "16");
         x.element("line", "", "x1", "470", "y1", "12", "x2", "490", "y2", "12", "stroke", HtmlReport.ORANGE,
                 "stroke-width", "2", "stroke-dasharray", "4 2");
         x.element("text", "GC, windows of 200 bp or more (right axis)", "x", "494", "y", "16");
@@ -58,6 +54,22 @@ final class RecordPlot {
         x.element("text", "posterior", "x", "14", "y", num((TOP + BOTTOM) / 2.0), "transform",
                 "rotate(-90 14 " + num((TOP + BOTTOM) / 2.0) + ")", "text-anchor", "middle");
         x.element("text", "GC", "x", str(RIGHT + 36), "y", num((TOP + BOTTOM) / 2.0));
+        return out.toString();
+    }
+
+    /**
+     * Draws into {@code out}, with {@code frame} from {@link #frame} for the plot's label. The fixed parts go through {@link Xml}; the parts repeated per bin and per segment are
+     * appended directly (numbers need no escaping, labels are escaped once), which made drawing several times
+     * cheaper in a cold process, where such code runs interpreted for its first thousands of rounds.
+     */
+    static void draw(StringBuilder out, HtmlReport.Plotted p, String frame) throws IOException {
+        Xml x = new Xml(out);
+        PosteriorPlot plot = p.plot();
+        double length = p.length();
+        x.open("svg", "xmlns", "http://www.w3.org/2000/svg", "width", Integer.toString(WIDTH), "height",
+                Integer.toString(HEIGHT), "viewBox", "0 0 " + WIDTH + " " + HEIGHT, "role", "img",
+                "aria-label", "posterior of " + p.label() + " along " + p.seqid(), "data-seqid", p.seqid());
+        out.append(frame);
         // mean (shaded area), maximum (line), GC (dashed line), in bin units mapped into the frame by one transform
         String transform = seriesTransform(plot.binSize(), length);
         int last = plot.bins() - 1;

@@ -48,7 +48,8 @@ class RecordPlotSeriesTest {
             mean[bins - 1] = 0f;
             PosteriorPlot plot = new PosteriorPlot(bin, max, mean, gc);
             StringBuilder svg = new StringBuilder();
-            RecordPlot.draw(svg, new HtmlReport.Plotted("r", length, plot, List.of(), "island"));
+            RecordPlot.draw(svg, new HtmlReport.Plotted("r", length, plot, List.of(), "island"),
+                    RecordPlot.frame("island"));
             Document doc = DocumentBuilderFactory.newInstance().newDocumentBuilder()
                     .parse(new ByteArrayInputStream(svg.toString().getBytes(StandardCharsets.UTF_8)));
 
@@ -106,7 +107,7 @@ class RecordPlotSeriesTest {
         NodeList groups;
         StringBuilder svg = new StringBuilder();
         RecordPlot.draw(svg, new HtmlReport.Plotted("r", 50, new PosteriorPlot(1, new float[50], new float[50],
-                new float[50]), List.of(), "island"));
+                new float[50]), List.of(), "island"), RecordPlot.frame("island"));
         Document doc = DocumentBuilderFactory.newInstance().newDocumentBuilder()
                 .parse(new ByteArrayInputStream(svg.toString().getBytes(StandardCharsets.UTF_8)));
         groups = doc.getElementsByTagName("g");
