@@ -173,24 +173,43 @@ final class RecordPlot {
     }
 
     /**
-     * Appends " x,y" for every bin whose value is finite. One loop of its own, called three times per plot: run
-     * that often, it gets compiled, where the same loop inside {@link #draw} (called once per plot, at most 50
-     * times a run) stayed interpreted.
+     * Appends " x,y" for the bins whose value is finite, leaving out each point whose neighbours on both sides are at
+     * the same height: the line through them is the same without it, and a posterior curve is flat over most of a
+     * record. One loop of its own, called three times per plot: run that often, it gets compiled, where the same
+     * loop inside {@link #draw} (called once per plot, at most 50 times a run) stayed interpreted.
      */
     private static StringBuilder appendPoints(StringBuilder b, float[] values, String lastX) {
         int last = values.length - 1;
+        // the point held back (-1: none) and the height of the last point written (MIN_VALUE: none yet)
+        int held = -1;
+        int heldY = 0;
+        int writtenY = Integer.MIN_VALUE;
         for (int i = 0; i < values.length; i++) {
-            if (Float.isFinite(values[i])) {
-                b.append(' ');
-                if (i < last) {
-                    b.append(i);
-                } else {
-                    b.append(lastX);
-                }
-                b.append(',').append(Math.round(values[i] * VALUE_UNITS));
+            if (!Float.isFinite(values[i])) {
+                continue;
             }
+            int y = Math.round(values[i] * VALUE_UNITS);
+            if (held >= 0 && !(heldY == y && writtenY == y)) {
+                appendPoint(b, held, heldY, last, lastX);
+                writtenY = heldY;
+            }
+            held = i;
+            heldY = y;
+        }
+        if (held >= 0) {
+            appendPoint(b, held, heldY, last, lastX);
         }
         return b;
+    }
+
+    private static void appendPoint(StringBuilder b, int bin, int y, int last, String lastX) {
+        b.append(' ');
+        if (bin < last) {
+            b.append(bin);
+        } else {
+            b.append(lastX);
+        }
+        b.append(',').append(y);
     }
 
     /** Drops the leading space. */

@@ -23,7 +23,9 @@ import static org.assertj.core.api.Assertions.within;
  * each point of the polylines and the polygon mapped through the enclosing group's transform as SVG 1.1 defines it
  * (section 7.6: {@code translate(tx ty) scale(sx sy)} maps (x, y) to (tx + sx x, ty + sy y)), and compared with
  * where the bins belong in the frame, computed here from the plot's numbers: x at each bin's centre (the last one
- * clamped to the record's end) across the 880 pixels from 60 to 940, y at 170 - 140 x value.
+ * clamped to the record's end) across the 880 pixels from 60 to 940, y at 170 - 140 x value. A point may be left out
+ * where the line is flat through it, so every bin is checked to lie on the drawn line, and every drawn point to be
+ * a bin's.
  */
 class RecordPlotSeriesTest {
     private static final Pattern TRANSFORM = Pattern.compile(
@@ -56,31 +58,68 @@ class RecordPlotSeriesTest {
             List<double[]> drawnMax = points(doc, "polyline", 0);
             List<double[]> drawnGc = points(doc, "polyline", 1);
             List<double[]> drawnMean = points(doc, "polygon", 0);
-            assertThat(drawnMax).hasSize(bins);
-            expect(drawnMax, max, bin, length, 0);
-            expect(drawnGc, gc, bin, length, 0);
+            expect(drawnMax, max, bin, length);
+            expect(drawnGc, gc, bin, length);
             // the shaded area runs from the frame's bottom-left corner along the means to its bottom-right corner
-            assertThat(drawnMean).hasSize(bins + 2);
             assertThat(drawnMean.get(0)[0]).isCloseTo(60, within(1e-6));
             assertThat(drawnMean.get(0)[1]).isCloseTo(170, within(1e-6));
-            assertThat(drawnMean.get(bins + 1)[0]).isCloseTo(940, within(1e-3));
-            assertThat(drawnMean.get(bins + 1)[1]).isCloseTo(170, within(1e-6));
-            expect(drawnMean, mean, bin, length, 1);
+            assertThat(drawnMean.get(drawnMean.size() - 1)[0]).isCloseTo(940, within(1e-3));
+            assertThat(drawnMean.get(drawnMean.size() - 1)[1]).isCloseTo(170, within(1e-6));
+            expect(drawnMean.subList(1, drawnMean.size() - 1), mean, bin, length);
         }
     }
 
-    /** The finite values' points, in order, starting at {@code from} in the drawn list. */
-    private static void expect(List<double[]> drawn, float[] values, int bin, int length, int from) {
-        int at = from;
+    @Test
+    void aFlatStretchIsDrawnByItsEnds() throws Exception {
+        int length = 100_000;
+        int bin = 100;
+        float[] values = new float[1000];
+        java.util.Arrays.fill(values, 0.25f);
+        values[500] = 0.75f;
+        StringBuilder svg = new StringBuilder();
+        RecordPlot.draw(svg, new HtmlReport.Plotted("r", length, new PosteriorPlot(bin, values, values, values),
+                List.of(), "island"), RecordPlot.frame("island"));
+        Document doc = DocumentBuilderFactory.newInstance().newDocumentBuilder()
+                .parse(new ByteArrayInputStream(svg.toString().getBytes(StandardCharsets.UTF_8)));
+        List<double[]> drawn = points(doc, "polyline", 0);
+        // first, last before the peak, peak, first after it, last
+        assertThat(drawn).hasSize(5);
+        expect(drawn, values, bin, length);
+    }
+
+    /**
+     * The drawn line, in pixels, against the finite values: every drawn point is a bin's point, in order, the first
+     * and last finite bins are drawn, and every bin in between lies on the line.
+     */
+    private static void expect(List<double[]> drawn, float[] values, int bin, int length) {
+        List<double[]> expected = new ArrayList<>();
         for (int i = 0; i < values.length; i++) {
-            if (!Float.isFinite(values[i])) {
-                continue;
+            if (Float.isFinite(values[i])) {
+                double centre = Math.min(length, (i + 0.5) * bin);
+                expected.add(new double[]{60 + 880 * centre / length, 170 - 140 * values[i]});
             }
-            double centre = Math.min(length, (i + 0.5) * bin);
-            double[] p = drawn.get(at++);
-            assertThat(p[0]).as("x of bin %d", i).isCloseTo(60 + 880 * centre / length, within(1e-3));
-            // values are written in thousandths: half a thousandth of the 140-pixel height at most
-            assertThat(p[1]).as("y of bin %d", i).isCloseTo(170 - 140 * values[i], within(0.07 + 1e-6));
+        }
+        // values are written in thousandths: half a thousandth of the 140-pixel height at most
+        double yTolerance = 0.07 + 1e-6;
+        int at = 0;
+        for (double[] d : drawn) {
+            while (at < expected.size() && Math.abs(expected.get(at)[0] - d[0]) > 1e-3) {
+                at++;
+            }
+            assertThat(at).as("drawn point at x %.3f is a bin's", d[0]).isLessThan(expected.size());
+            assertThat(d[1]).isCloseTo(expected.get(at)[1], within(yTolerance));
+        }
+        assertThat(drawn.get(0)[0]).isCloseTo(expected.get(0)[0], within(1e-3));
+        assertThat(drawn.get(drawn.size() - 1)[0]).isCloseTo(expected.get(expected.size() - 1)[0], within(1e-3));
+        int segment = 0;
+        for (double[] e : expected) {
+            while (segment + 1 < drawn.size() - 1 && drawn.get(segment + 1)[0] < e[0] - 1e-3) {
+                segment++;
+            }
+            double[] a = drawn.get(segment);
+            double[] b = drawn.get(Math.min(segment + 1, drawn.size() - 1));
+            double y = b[0] - a[0] < 1e-9 ? a[1] : a[1] + (b[1] - a[1]) * (e[0] - a[0]) / (b[0] - a[0]);
+            assertThat(y).as("line at x %.3f", e[0]).isCloseTo(e[1], within(yTolerance));
         }
     }
 
