@@ -80,6 +80,18 @@ public final class HtmlReport implements AutoCloseable {
             t.setDaemon(true);
             return t;
         });
+        // the frame of the first reported label (the plotted one unless asked otherwise), made while the run starts
+        // up: its first making also loads and sets up the drawing code, which at the first plot cost ~10 ms
+        if (!labels.isEmpty()) {
+            String first = labels.get(0);
+            drawing.execute(() -> {
+                try {
+                    frameFor(first);
+                } catch (IOException e) {
+                    // markup into a StringBuilder does not fail; were it to, the first plot makes the frame again
+                }
+            });
+        }
     }
 
     /** Takes one finished record (with a profile holding composition and a plot). */
