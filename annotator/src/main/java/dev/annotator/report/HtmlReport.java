@@ -80,18 +80,22 @@ public final class HtmlReport implements AutoCloseable {
             t.setDaemon(true);
             return t;
         });
-        // the frame of the first reported label (the plotted one unless asked otherwise), made while the run starts
-        // up: its first making also loads and sets up the drawing code, which at the first plot cost ~10 ms
-        if (!labels.isEmpty()) {
-            String first = labels.get(0);
-            drawing.execute(() -> {
-                try {
+        // Made while the run starts up, on this otherwise idle thread: the frame of the first reported label (the
+        // plotted one unless asked otherwise), whose first making also loads and sets up the drawing code (~10 ms at
+        // the first plot), and what the report's end needs and would load then, on the one thread still busy: the
+        // histograms' drawing code and the time-zone rules for the report's local date (~4 ms).
+        String first = labels.isEmpty() ? null : labels.get(0);
+        drawing.execute(() -> {
+            try {
+                if (first != null) {
                     frameFor(first);
-                } catch (IOException e) {
-                    // markup into a StringBuilder does not fail; were it to, the first plot makes the frame again
                 }
-            });
-        }
+                Histograms.draw(new Xml(new StringBuilder(4096)), Histogram.linear(0, 1, 1), "", false);
+            } catch (IOException e) {
+                // markup into a StringBuilder does not fail; were it to, the report's end does the same work again
+            }
+            java.time.format.DateTimeFormatter.ISO_OFFSET_DATE_TIME.format(java.time.OffsetDateTime.now());
+        });
     }
 
     /** Takes one finished record (with a profile holding composition and a plot). */
@@ -181,7 +185,10 @@ public final class HtmlReport implements AutoCloseable {
         runRow(x, "tool", "annotator " + version);
         runRow(x, "date", date);
         runRow(x, "runtime", Axis.fixed(seconds, 2) + " s");
-        long total = rows.stream().mapToLong(Row::length).sum();
+        long total = 0;
+        for (Row r : rows) {
+            total += r.length();
+        }
         runRow(x, "records", rows.size() + " (" + Axis.bases(total) + ")");
         x.close("table");
         recordTable(x);
