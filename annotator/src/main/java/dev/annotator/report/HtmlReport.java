@@ -83,7 +83,7 @@ public final class HtmlReport implements AutoCloseable {
         // Made while the run starts up, on this otherwise idle thread: the frame of the first reported label (the
         // plotted one unless asked otherwise), whose first making also loads and sets up the drawing code (~10 ms at
         // the first plot), and what the report's end needs and would load then, on the one thread still busy: the
-        // histograms' drawing code and the time-zone rules for the report's local date (~4 ms).
+        // histograms' drawing code, and the time-zone rules and formatter for the report's local date (~5 ms).
         String first = labels.isEmpty() ? null : labels.get(0);
         drawing.execute(() -> {
             try {
