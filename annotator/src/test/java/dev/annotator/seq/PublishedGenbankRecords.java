@@ -43,6 +43,30 @@ public final class PublishedGenbankRecords {
         }
     }
 
+    /**
+     * The CRC32 field of a published file's gzip trailer (RFC 1952, section 2.3.1: the CRC-32 of the uncompressed
+     * data, little-endian in the 4 bytes before the last 4), as its distributor's gzip wrote it.
+     */
+    public static long trailerCrc32(String file) {
+        return trailerField(file, 8);
+    }
+
+    /** The ISIZE field of a published file's gzip trailer: the uncompressed size modulo 2^32 (RFC 1952). */
+    public static long trailerSize(String file) {
+        return trailerField(file, 4);
+    }
+
+    private static long trailerField(String file, int fromEnd) {
+        try {
+            byte[] gz = Files.readAllBytes(path(file));
+            int at = gz.length - fromEnd;
+            return (gz[at] & 0xFFL) | (gz[at + 1] & 0xFFL) << 8 | (gz[at + 2] & 0xFFL) << 16
+                    | (gz[at + 3] & 0xFFL) << 24;
+        } catch (IOException e) {
+            throw new UncheckedIOException(e);
+        }
+    }
+
     /** The bases of the (single) ORIGIN section, as written: position numbers and blanks dropped. */
     public static String rawBases(String file) {
         StringBuilder bases = new StringBuilder();
