@@ -71,7 +71,7 @@ public class KernelBenchmark {
     }
 
     /** The compiled model of a topology named as in {@link #topology}. */
-    static HmmParameters parameters(String topology) {
+    public static HmmParameters parameters(String topology) {
         return switch (topology) {
             case "island" -> ModelCompiler.compile(ModelLoader.load("cpg-island"));
             case "dense3" -> randomModel(new SplittableRandom(3), 3, 2, 3);
@@ -84,7 +84,7 @@ public class KernelBenchmark {
     }
 
     /** The 1 Mbp a topology is measured on. */
-    static byte[] sequence(String topology) {
+    public static byte[] sequence(String topology) {
         SplittableRandom rng = new SplittableRandom(1);
         if (topology.startsWith("genes")) {
             HmmModel genes = ModelLoader.load("bacterial-genes");
